@@ -1,0 +1,51 @@
+#!/usr/bin/env node
+import { parseArgs } from 'node:util';
+import { gradeCommand, InputError } from './grade-command.js';
+
+const USAGE = `Usage:
+  beadbook grade FILE [--json] [--limits LIMITS.json]
+      Grade a seam file (format: docs/seam-file.md) to ISO 5817 quality levels.
+      --json     print the full result as JSON
+      --limits   replace built-in limit rows with your organisation's verified table (docs/limits-file.md)
+  beadbook --help
+
+Exit codes: 0 graded (whatever the level), 2 invalid input, 1 unexpected failure.`;
+
+async function main(argv: string[]): Promise<number> {
+  const [command, ...rest] = argv;
+  if (!command || command === '--help' || command === '-h' || command === 'help') {
+    process.stdout.write(`${USAGE}\n`);
+    return command ? 0 : 2;
+  }
+  if (command !== 'grade') throw new InputError(`unknown command "${command}"\n\n${USAGE}`);
+  let parsed;
+  try {
+    parsed = parseArgs({
+      args: rest,
+      allowPositionals: true,
+      options: { json: { type: 'boolean', default: false }, limits: { type: 'string' } },
+    });
+  } catch (e) {
+    throw new InputError(`${(e as Error).message}\n\n${USAGE}`);
+  }
+  const [file, ...extra] = parsed.positionals;
+  if (!file || extra.length) throw new InputError(`grade takes exactly one seam file\n\n${USAGE}`);
+  const out = await gradeCommand({ file, json: parsed.values.json ?? false, limits: parsed.values.limits });
+  process.stdout.write(`${out}\n`);
+  return 0;
+}
+
+main(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (e: unknown) => {
+    if (e instanceof InputError) {
+      process.stderr.write(`beadbook: ${e.message}\n`);
+      process.exitCode = 2;
+    } else {
+      process.stderr.write(`beadbook: unexpected failure: ${e instanceof Error ? e.message : String(e)}\n`);
+      process.exitCode = 1;
+    }
+  },
+);

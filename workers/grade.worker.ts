@@ -1,0 +1,4 @@
+import { expose } from 'comlink';
+import { gradeApi } from './grade-api.js';
+
+expose(gradeApi);
