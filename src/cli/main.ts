@@ -1,12 +1,17 @@
 #!/usr/bin/env node
 import { parseArgs } from 'node:util';
 import { gradeCommand, InputError } from './grade-command.js';
+import { jsonSchemaOf, SCHEMA_NAMES, type SchemaName } from './schema-command.js';
+
+const isSchemaName = (x: string | undefined): x is SchemaName => SCHEMA_NAMES.includes(x as SchemaName);
 
 const USAGE = `Usage:
   beadbook grade FILE [--json] [--limits LIMITS.json]
       Grade a seam file (format: docs/seam-file.md) to ISO 5817 quality levels.
       --json     print the full result as JSON
       --limits   replace built-in limit rows with your organisation's verified table (docs/limits-file.md)
+  beadbook schema seam|limits
+      Print the JSON Schema of the seam file or the verified limit table.
   beadbook --help
 
 Exit codes: 0 graded (whatever the level), 2 invalid input, 1 unexpected failure.`;
@@ -16,6 +21,14 @@ async function main(argv: string[]): Promise<number> {
   if (!command || command === '--help' || command === '-h' || command === 'help') {
     process.stdout.write(`${USAGE}\n`);
     return command ? 0 : 2;
+  }
+  if (command === 'schema') {
+    const [name, ...extra] = rest;
+    if (!isSchemaName(name) || extra.length) {
+      throw new InputError(`schema takes one of: ${SCHEMA_NAMES.join(', ')}\n\n${USAGE}`);
+    }
+    process.stdout.write(`${jsonSchemaOf(name)}\n`);
+    return 0;
   }
   if (command !== 'grade') throw new InputError(`unknown command "${command}"\n\n${USAGE}`);
   let parsed;

@@ -180,7 +180,9 @@ function checkValues(file: SeamFile, r: Reading, i: number, problems: Problem[])
       message: 'leg1 and leg2 go together: asymmetry is h = z1 − z2',
     });
   }
+  // On a butt joint these values are already reported as not applying; asking for a throat would contradict that.
   if (
+    family === 'fillet' &&
     (v.throat !== undefined || v.rootGap !== undefined || v.leg1 !== undefined) &&
     seam.nominalThroat === undefined
   ) {
@@ -291,7 +293,14 @@ const MAX_PROBLEMS = 50;
 
 /** Validates a seam file at the boundary: the schema first, then what relates fields to each other. */
 export function parseSeamFile(input: unknown): Parsed<SeamFile> {
-  const parsed = v.safeParse(seamFileSchema, input, { abortEarly: false });
+  if (Array.isArray(input)) {
+    return {
+      ok: false,
+      problems: [{ path: '(file)', message: 'seam file must be an object, got a list: give one seam file' }],
+    };
+  }
+  // Every field is checked, but each field reports only its first fault (Infinity is "not finite", not also "too big").
+  const parsed = v.safeParse(seamFileSchema, input, { abortEarly: false, abortPipeEarly: true });
   if (!parsed.success) return { ok: false, problems: toProblems(parsed.issues).slice(0, MAX_PROBLEMS) };
   const file = parsed.output;
   const problems: Problem[] = [];

@@ -1,23 +1,19 @@
-import { describeLimit, limitValue, marginTo, missingInputs, passesLimit } from '../criteria/limit.js';
-import { bandFor } from '../criteria/registry.js';
-import { limitStatus, type CriterionRow, type LevelLimit, type LimitStatus } from '../criteria/types.js';
-import { jointFamily, midPlaneOffset, readingSide, smallerThickness } from '../model/joint.js';
-import { LEVELS, worseLevel, meets, type Level, type LevelMet } from '../model/levels.js';
-import type { JointFamily, ParameterName } from '../model/parameters.js';
-import { PARAMETER_NAMES } from '../model/parameters.js';
-import type { Reading, Seam } from '../model/seam-file.js';
-import type { RequiredLevels } from './required.js';
+import { LEVELS, type Level, type LevelMet } from '../model/levels.js';
+import { PARAMETER_NAMES, type ParameterName } from '../model/parameters.js';
+import type { Reading } from '../model/seam-file.js';
+import {
+  FLAG_BORDERLINE,
+  FLAG_NO_RESOLUTION,
+  FLAG_NOMINAL_THROAT,
+  gradeColumns,
+  PARAM_BIT,
+  RANK_NONE,
+  type GradeColumns,
+} from './columns.js';
+import { limitsFor, type LimitAtLevel, type SeamContext } from './context.js';
 
-export interface LimitAtLevel {
-  readonly level: Level;
-  /** null when the row sets no limit at this level ("unlimited"). */
-  readonly value: number | null;
-  readonly text: string;
-  readonly shortOnly: boolean;
-  readonly passes: boolean;
-  readonly status: LimitStatus;
-  readonly source: string;
-}
+export type { LimitAtLevel, SeamContext } from './context.js';
+export { seamContext } from './context.js';
 
 export interface ImperfectionGrade {
   readonly rowId: string;
@@ -56,191 +52,85 @@ export interface ReadingGrade {
   readonly notGraded: readonly ParameterName[];
 }
 
-/** What every reading of one seam shares, computed once per seam. */
-export interface SeamContext {
-  readonly seam: Seam;
-  readonly family: JointFamily;
-  readonly tMin: number;
-  readonly rowsByParameter: ReadonlyMap<ParameterName, readonly CriterionRow[]>;
-  readonly required: RequiredLevels;
-  readonly asymmetryPrescribed: boolean;
-}
+export const RANK_LEVEL: readonly LevelMet[] = ['belowD', 'D', 'C', 'B'];
 
-export function seamContext(
-  seam: Seam,
-  rows: readonly CriterionRow[],
-  required: RequiredLevels,
-): SeamContext {
-  const family = jointFamily(seam.joint.type);
-  const byParam = new Map<ParameterName, CriterionRow[]>();
-  for (const row of rows) {
-    if (row.applies.family !== 'any' && row.applies.family !== family) continue;
-    if (row.applies.circumferential !== undefined && row.applies.circumferential !== seam.circumferential)
-      continue;
-    if (row.applies.singleSidedOnly && seam.joint.sides !== 'one') continue;
-    const list = byParam.get(row.parameter) ?? [];
-    list.push(row);
-    byParam.set(row.parameter, list);
-  }
-  const legs = seam.nominalLegs;
-  return {
-    seam,
-    family,
-    tMin: smallerThickness(seam),
-    rowsByParameter: byParam,
-    required,
-    asymmetryPrescribed: legs !== undefined && legs.leg1 !== legs.leg2,
-  };
-}
+const NOTE_NO_RESOLUTION = 'instrument resolution not given: borderline not assessed';
+const NOTE_NOMINAL_THROAT = 'actual throat aA not measured in this reading: nominal a used';
+const NO_NOTES: readonly string[] = Object.freeze([]);
+// Notes are shared, frozen lists: readings with the same flags carry the same list.
+const NOTES: Readonly<Record<number, readonly string[]>> = {
+  [FLAG_NO_RESOLUTION]: Object.freeze([NOTE_NO_RESOLUTION]),
+  [FLAG_NOMINAL_THROAT]: Object.freeze([NOTE_NOMINAL_THROAT]),
+  [FLAG_NO_RESOLUTION | FLAG_NOMINAL_THROAT]: Object.freeze([NOTE_NO_RESOLUTION, NOTE_NOMINAL_THROAT]),
+};
 
-function measuredQuantity(row: CriterionRow, r: Reading, ctx: SeamContext): number | undefined {
-  const v = r.values;
-  const nominalA = ctx.seam.nominalThroat;
-  switch (row.quantity) {
-    case 'value':
-      return v[row.parameter];
-    case 'throatDeficit':
-      return v.throat === undefined || nominalA === undefined ? undefined : Math.max(0, nominalA - v.throat);
-    case 'throatExcess':
-      return v.throat === undefined || nominalA === undefined ? undefined : Math.max(0, v.throat - nominalA);
-    case 'legDifference':
-      return v.leg1 === undefined || v.leg2 === undefined ? undefined : Math.abs(v.leg1 - v.leg2);
-    case 'misalignment': {
-      if (v.linearMisalignment === undefined) return undefined;
-      const { plate1, plate2 } = ctx.seam;
-      const e = midPlaneOffset(
-        v.linearMisalignment,
-        r.misalignmentBasis ?? 'midPlane',
-        plate1.thickness,
-        plate2.thickness,
-      );
-      return Math.abs(e);
-    }
-  }
-}
-
-const round6 = (x: number): number => Math.round(x * 1e6) / 1e6;
-
-function thicknessFor(row: CriterionRow, r: Reading, ctx: SeamContext): number {
-  if (row.thickness === 'toePlateElseSmaller' && r.toe) {
-    return r.toe.plate === 1 ? ctx.seam.plate1.thickness : ctx.seam.plate2.thickness;
-  }
-  return ctx.tMin;
-}
-
-function gradeRow(
-  row: CriterionRow,
+/** The display objects of one imperfection entry of the columns. */
+export function materialiseEntry(
+  cols: GradeColumns,
+  e: number,
   r: Reading,
   ctx: SeamContext,
-  measured: number,
-): ImperfectionGrade | null {
-  const notes: string[] = [];
-  const t = thicknessFor(row, r, ctx);
-  let a = ctx.seam.nominalThroat;
-  if (row.throat === 'actual') {
-    if (r.values.throat !== undefined) a = r.values.throat;
-    else notes.push('actual throat aA not measured in this reading: nominal a used');
-  }
-  const inputs = { t, a, b: r.values.reinforcementWidth, s: ctx.seam.buttThickness ?? ctx.tMin };
-  const band = bandFor(row, t);
-  const limits: LimitAtLevel[] = [];
-  for (const level of LEVELS) {
-    const l: LevelLimit = band.levels[level];
-    const missing = missingInputs(l.limit, inputs);
-    if (missing.length) {
-      // Validation requires these; a replaced limit table could still ask for a variable the row never had.
-      notes.push(`limit at ${level} needs ${missing.join(', ')}, which this reading lacks: not graded`);
-      return null;
-    }
-    const value = limitValue(l.limit, inputs);
-    limits.push({
-      level,
-      value: Number.isFinite(value) ? value : null,
-      text: describeLimit(l.limit, row.unit),
-      shortOnly: l.limit.kind === 'max' && l.limit.shortOnly === true,
-      passes: passesLimit(l.limit, value, measured),
-      status: limitStatus(l.confidence),
-      source: l.source,
-    });
-  }
-  // Nested levels: a level is met only when every less stringent level is met too.
-  let levelMet: LevelMet = 'belowD';
-  for (let i = LEVELS.length - 1; i >= 0; i--) {
-    if (!(limits[i] as LimitAtLevel).passes) break;
-    levelMet = LEVELS[i] as Level;
-  }
-  const required = ctx.required.forRefs(row.refs);
-  const governing = limits[LEVELS.indexOf(required)] as LimitAtLevel;
-  const governingExpr = band.levels[required].limit;
-  const margin = marginTo(governingExpr, governing.value ?? Infinity, measured);
-  const resolution = (row.unit === 'deg' ? r.instrument.resolutionDeg : r.instrument.resolutionMm) ?? null;
-  const borderline = margin !== null && resolution !== null && Math.abs(margin) <= resolution + 1e-9;
-  if (resolution === null) notes.push('instrument resolution not given: borderline not assessed');
+): ImperfectionGrade {
+  const set = ctx.limitSets[cols.limitSet[e] as number];
+  if (!set) throw new Error(`grade columns refer to an unknown limit set at entry ${e}`);
+  const info = ctx.rows[set.rowIndex];
+  if (!info) throw new Error(`grade columns refer to an unknown row at entry ${e}`);
+  const { row } = info;
+  const limits = limitsFor(set, cols.mask[e] as number);
+  const levelMet = RANK_LEVEL[cols.rank[e] as number] as LevelMet;
+  const flags = cols.flags[e] as number;
+  const margin = cols.margin[e] as number;
+  const notes = NOTES[flags & (FLAG_NO_RESOLUTION | FLAG_NOMINAL_THROAT)] ?? NO_NOTES;
   return {
     rowId: row.id,
     row: row.row,
     refs: row.refs,
     title: row.title,
     unit: row.unit,
-    measured: round6(measured),
+    measured: cols.measured[e] as number,
     levelMet,
-    required,
-    meetsRequired: meets(levelMet, required),
+    required: info.required,
+    meetsRequired: (cols.rank[e] as number) >= LEVELS.length - info.governingIndex,
     limits,
-    governing,
-    margin,
-    borderline,
-    resolution,
-    thicknessMm: t,
+    governing: limits[info.governingIndex] as LimitAtLevel,
+    margin: Number.isNaN(margin) ? null : margin,
+    borderline: (flags & FLAG_BORDERLINE) !== 0,
+    resolution: (row.unit === 'deg' ? r.instrument.resolutionDeg : r.instrument.resolutionMm) ?? null,
+    thicknessMm: cols.thickness[e] as number,
     notes,
   };
 }
 
-const usesWidth = (row: CriterionRow): boolean =>
-  row.bands.some((b) =>
-    LEVELS.some((l) => {
-      const e = b.levels[l].limit;
-      return e.kind === 'max' && e.b !== undefined;
-    }),
-  );
-
-export function gradeReading(r: Reading, ctx: SeamContext): ReadingGrade {
-  const side = readingSide(r);
+export function materialiseReading(
+  cols: GradeColumns,
+  ri: number,
+  r: Reading,
+  ctx: SeamContext,
+): ReadingGrade {
+  const first = cols.readingFirst[ri] as number;
+  const count = cols.readingCount[ri] as number;
   const imperfections: ImperfectionGrade[] = [];
-  const graded = new Set<ParameterName>();
-  for (const name of PARAMETER_NAMES) {
-    if (r.values[name] === undefined) continue;
-    const rows = ctx.rowsByParameter.get(name);
-    if (!rows) continue;
-    for (const row of rows) {
-      if (row.applies.side !== undefined && row.applies.side !== side) continue;
-      if (row.quantity === 'legDifference' && ctx.asymmetryPrescribed) continue;
-      const measured = measuredQuantity(row, r, ctx);
-      if (measured === undefined) continue;
-      const g = gradeRow(row, r, ctx, measured);
-      if (g) {
-        imperfections.push(g);
-        graded.add(name);
-        if (row.quantity === 'legDifference') graded.add('leg2');
-        if (usesWidth(row)) graded.add('reinforcementWidth');
-      }
-    }
-  }
-  let levelMet: LevelMet | null = null;
-  for (const g of imperfections) levelMet = levelMet === null ? g.levelMet : worseLevel(levelMet, g.levelMet);
-  const notGraded = PARAMETER_NAMES.filter((n) => r.values[n] !== undefined && !graded.has(n));
-  const position = r.position ?? r.start ?? 0;
-  return {
+  for (let e = first; e < first + count; e++) imperfections.push(materialiseEntry(cols, e, r, ctx));
+  const rank = cols.readingRank[ri] as number;
+  const ungraded = (cols.readingPresent[ri] as number) & ~(cols.readingGraded[ri] as number);
+  const side = r.toe?.side ?? r.side;
+  const grade: { -readonly [K in keyof ReadingGrade]: ReadingGrade[K] } = {
     readingId: r.id,
     round: r.round,
-    position,
-    ...(r.start !== undefined ? { start: r.start } : {}),
-    ...(r.end !== undefined ? { end: r.end } : {}),
+    position: r.position ?? r.start ?? 0,
     sampling: r.sampling,
-    ...(r.toe ? { toe: r.toe } : {}),
-    ...(side ? { side } : {}),
-    levelMet,
+    levelMet: rank === RANK_NONE ? null : (RANK_LEVEL[rank] as LevelMet),
     imperfections,
-    notGraded,
+    notGraded: PARAMETER_NAMES.filter((n) => (ungraded & PARAM_BIT[n]) !== 0),
   };
+  if (r.start !== undefined) grade.start = r.start;
+  if (r.end !== undefined) grade.end = r.end;
+  if (r.toe) grade.toe = r.toe;
+  if (side) grade.side = side;
+  return grade;
+}
+
+/** Grades one reading against its seam (the same evaluation the seam grade uses, for one reading). */
+export function gradeReading(r: Reading, ctx: SeamContext): ReadingGrade {
+  return materialiseReading(gradeColumns([r], ctx), 0, r, ctx);
 }

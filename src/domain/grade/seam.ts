@@ -2,16 +2,12 @@ import { GRADE_CAUTION } from '../caution.js';
 import { BUILT_IN_CRITERIA } from '../criteria/registry.js';
 import { ISO5817_2023_NOT_HANDLED } from '../criteria/iso5817-2023.js';
 import type { CriteriaSet } from '../criteria/types.js';
-import { meets, worseLevel, levelRank, type Level, type LevelMet } from '../model/levels.js';
+import { LEVELS, meets, worseLevel, levelRank, type Level, type LevelMet } from '../model/levels.js';
 import type { Reading, SeamFile } from '../model/seam-file.js';
 import { gradeChecklist, type ChecklistGrade } from './checklist.js';
-import {
-  gradeReading,
-  seamContext,
-  type ImperfectionGrade,
-  type ReadingGrade,
-  type SeamContext,
-} from './reading.js';
+import { FLAG_BORDERLINE, gradeColumns, type GradeColumns } from './columns.js';
+import { seamContext, type LimitSet, type RowInfo, type SeamContext } from './context.js';
+import { materialiseEntry, materialiseReading, RANK_LEVEL, type ReadingGrade } from './reading.js';
 import { requiredLevels } from './required.js';
 import { checkShortRule, type ShortRuleCheck, type Stretch } from './short-rule.js';
 
@@ -56,8 +52,18 @@ export interface RoundGrade {
   readonly checklist: ChecklistGrade;
   readonly worst: WorstSpot | null;
   readonly borderlineCount: number;
+  readonly readingCount: number;
+  /** Per-reading grades as objects; empty when the grade was asked for in columns. */
   readonly readings: readonly ReadingGrade[];
+  /** Per-reading grades in columns, with the reading ids in column order (only with `readings: 'columns'`). */
+  readonly columns?: GradeColumns;
+  readonly readingIds?: readonly string[];
   readonly supersededReadings: readonly string[];
+}
+
+export interface GradeOptions {
+  /** 'objects' (default): per-reading grades as objects; 'columns': typed-array columns for bulk imports. */
+  readonly readings?: 'objects' | 'columns';
 }
 
 export interface SeamGrade {
@@ -78,39 +84,20 @@ export interface SeamGrade {
   readonly caution: string;
 }
 
-const relativeMargin = (g: ImperfectionGrade): number => {
-  if (g.margin === null) return Infinity;
-  const scale = Math.abs(g.governing.value ?? 0);
-  return scale > 0 ? g.margin / scale : g.margin;
-};
+/** Ordering of spots, worst first: lower level met, then the smaller margin relative to its limit, then position. */
+interface SpotKey {
+  readonly rank: number;
+  readonly rel: number;
+  readonly position: number;
+  readonly readingId: string;
+}
 
-/** Worse spot first: lower level met, then the smaller margin relative to its limit, then position. */
-function worseSpot(a: WorstSpot & { rel: number }, b: WorstSpot & { rel: number }): boolean {
-  const ra = levelRank(a.levelMet);
-  const rb = levelRank(b.levelMet);
-  if (ra !== rb) return ra < rb;
+function isWorse(a: SpotKey, b: SpotKey): boolean {
+  if (a.rank !== b.rank) return a.rank < b.rank;
   if (a.rel !== b.rel) return a.rel < b.rel;
   if (a.position !== b.position) return a.position < b.position;
   return a.readingId < b.readingId;
 }
-
-function spot(r: ReadingGrade, g: ImperfectionGrade): WorstSpot & { rel: number } {
-  return {
-    readingId: r.readingId,
-    position: r.position,
-    rowId: g.rowId,
-    title: g.title,
-    measured: g.measured,
-    unit: g.unit,
-    levelMet: g.levelMet,
-    governingLimit: g.governing.value,
-    margin: g.margin,
-    borderline: g.borderline,
-    rel: relativeMargin(g),
-  };
-}
-
-const strip = ({ rel: _rel, ...s }: WorstSpot & { rel: number }): WorstSpot => s;
 
 function stretchOf(r: Reading, seamLength: number, circumferential: boolean): Stretch[] {
   if (r.start === undefined || r.end === undefined) {
@@ -127,69 +114,136 @@ function stretchOf(r: Reading, seamLength: number, circumferential: boolean): St
     : [];
 }
 
-function summarise(
+interface RowAccumulator {
+  readonly info: RowInfo;
+  rank: number;
+  count: number;
+  worstKey: SpotKey;
+  worstEntry: number;
+  lastSet: number;
+  readonly unverified: Set<Level>;
+  /** Readings of present imperfections within a short-only limit, per level index. */
+  readonly shortCounted: (number[] | undefined)[];
+}
+
+function keyOf(cols: GradeColumns, e: number, r: Reading, ctx: SeamContext): SpotKey {
+  const set = ctx.limitSets[cols.limitSet[e] as number] as LimitSet;
+  const info = ctx.rows[set.rowIndex] as RowInfo;
+  const margin = cols.margin[e] as number;
+  const scale = Math.abs(set.values[info.governingIndex] as number);
+  const rel = Number.isNaN(margin) ? Infinity : scale > 0 && Number.isFinite(scale) ? margin / scale : margin;
+  return { rank: cols.rank[e] as number, rel, position: r.position ?? r.start ?? 0, readingId: r.id };
+}
+
+function accumulate(
   readings: readonly Reading[],
-  grades: readonly ReadingGrade[],
+  cols: GradeColumns,
   ctx: SeamContext,
-  unverified: Set<string>,
-): ImperfectionSummary[] {
-  const byRow = new Map<string, { g: ImperfectionGrade; r: Reading; rg: ReadingGrade }[]>();
-  grades.forEach((rg, i) => {
-    for (const g of rg.imperfections) {
-      const list = byRow.get(g.rowId) ?? [];
-      list.push({ g, r: readings[i] as Reading, rg });
-      byRow.set(g.rowId, list);
+): { rows: Map<number, RowAccumulator>; borderline: number } {
+  const rows = new Map<number, RowAccumulator>();
+  let borderline = 0;
+  for (let e = 0; e < cols.size; e++) {
+    const ri = cols.reading[e] as number;
+    const r = readings[ri] as Reading;
+    const setIndex = cols.limitSet[e] as number;
+    const set = ctx.limitSets[setIndex] as LimitSet;
+    const rank = cols.rank[e] as number;
+    if ((cols.flags[e] as number) & FLAG_BORDERLINE) borderline++;
+    let acc = rows.get(set.rowIndex);
+    if (!acc) {
+      acc = {
+        info: ctx.rows[set.rowIndex] as RowInfo,
+        rank,
+        count: 0,
+        worstKey: keyOf(cols, e, r, ctx),
+        worstEntry: e,
+        lastSet: -1,
+        unverified: new Set(),
+        shortCounted: [],
+      };
+      rows.set(set.rowIndex, acc);
     }
-  });
-  const out: ImperfectionSummary[] = [];
-  for (const [rowId, entries] of byRow) {
-    const first = (entries[0] as (typeof entries)[number]).g;
-    let level: LevelMet = 'B';
-    let worst: (WorstSpot & { rel: number }) | null = null;
-    const unverifiedLevels = new Set<Level>();
-    for (const { g, rg } of entries) {
-      level = worseLevel(level, g.levelMet);
-      const s = spot(rg, g);
-      if (!worst || worseSpot(s, worst)) worst = s;
-      for (const l of g.limits) if (l.status === 'unverified') unverifiedLevels.add(l.level);
-    }
-    if (unverifiedLevels.size) unverified.add(rowId);
-    // Short-imperfection rule: at each level whose limit permits short imperfections only, the present ones
-    // (h > 0 and within the limit) may not add up beyond the allowance in any window.
-    const shortRule: ImperfectionSummary['shortRule'][number][] = [];
-    for (const level of ['D', 'C', 'B'] as const) {
-      const counted = entries.filter(({ g }) => {
-        const l = g.limits.find((x) => x.level === level);
-        return l !== undefined && l.shortOnly && l.passes && g.measured > 0;
-      });
-      if (!counted.length) continue;
-      const stretches = counted.flatMap(({ r }) => stretchOf(r, ctx.seam.length, ctx.seam.circumferential));
-      const check = checkShortRule(stretches, ctx.seam.length, ctx.seam.circumferential);
-      const pointReadings = counted.filter(({ r }) => r.start === undefined).length;
-      shortRule.push({ ...check, level, pointReadings });
-    }
-    // A level whose short rule fails is not met, and by nesting neither is any more stringent level.
-    for (const check of shortRule) {
-      if (!check.passes && levelRank(level) >= levelRank(check.level)) {
-        level = check.level === 'D' ? 'belowD' : check.level === 'C' ? 'D' : 'C';
+    acc.count++;
+    if (rank < acc.rank) acc.rank = rank;
+    // Cheap pre-check: only build the full key when this entry could be the worst.
+    if (rank <= acc.worstKey.rank) {
+      const key = keyOf(cols, e, r, ctx);
+      if (isWorse(key, acc.worstKey)) {
+        acc.worstKey = key;
+        acc.worstEntry = e;
       }
     }
-    out.push({
-      rowId,
-      row: first.row,
-      refs: first.refs,
-      title: first.title,
-      unit: first.unit,
-      levelMet: level,
-      required: first.required,
-      meetsRequired: meets(level, first.required),
-      readings: entries.length,
-      worst: strip(worst as WorstSpot & { rel: number }),
-      shortRule,
-      unverifiedLevels: [...unverifiedLevels],
-    });
+    // Limit sets are shared between readings with the same inputs: inspect each distinct one once.
+    if (setIndex !== acc.lastSet) {
+      acc.lastSet = setIndex;
+      set.byLevel.forEach((pair, i) => {
+        if (pair[0].status === 'unverified') acc.unverified.add(LEVELS[i] as Level);
+      });
+    }
+    if ((cols.measured[e] as number) > 0) {
+      for (let i = 0; i < LEVELS.length; i++) {
+        // Present and within a short-only limit at a level the reading meets: it counts toward that allowance.
+        if (set.shortOnly[i] && rank >= LEVELS.length - i) (acc.shortCounted[i] ??= []).push(ri);
+      }
+    }
   }
-  return out.sort((a, b) => a.rowId.localeCompare(b.rowId, 'en', { numeric: true }));
+  return { rows, borderline };
+}
+
+function spotOf(cols: GradeColumns, e: number, r: Reading, ctx: SeamContext): WorstSpot {
+  const g = materialiseEntry(cols, e, r, ctx);
+  return {
+    readingId: r.id,
+    position: r.position ?? r.start ?? 0,
+    rowId: g.rowId,
+    title: g.title,
+    measured: g.measured,
+    unit: g.unit,
+    levelMet: g.levelMet,
+    governingLimit: g.governing.value,
+    margin: g.margin,
+    borderline: g.borderline,
+  };
+}
+
+function summarise(
+  acc: RowAccumulator,
+  readings: readonly Reading[],
+  cols: GradeColumns,
+  ctx: SeamContext,
+): ImperfectionSummary {
+  const shortRule: ImperfectionSummary['shortRule'][number][] = [];
+  for (let i = LEVELS.length - 1; i >= 0; i--) {
+    const counted = acc.shortCounted[i];
+    if (!counted?.length) continue;
+    const list = counted.map((ri) => readings[ri] as Reading);
+    const stretches = list.flatMap((r) => stretchOf(r, ctx.seam.length, ctx.seam.circumferential));
+    const check = checkShortRule(stretches, ctx.seam.length, ctx.seam.circumferential);
+    const pointReadings = list.filter((r) => r.start === undefined).length;
+    shortRule.push({ ...check, level: LEVELS[i] as Level, pointReadings });
+  }
+  let level = RANK_LEVEL[acc.rank] as LevelMet;
+  // A level whose short rule fails is not met, and by nesting neither is any more stringent level.
+  for (const check of shortRule) {
+    if (!check.passes && levelRank(level) >= levelRank(check.level)) {
+      level = check.level === 'D' ? 'belowD' : check.level === 'C' ? 'D' : 'C';
+    }
+  }
+  const { row, required } = acc.info;
+  return {
+    rowId: row.id,
+    row: row.row,
+    refs: row.refs,
+    title: row.title,
+    unit: row.unit,
+    levelMet: level,
+    required,
+    meetsRequired: meets(level, required),
+    readings: acc.count,
+    worst: spotOf(cols, acc.worstEntry, readings[cols.reading[acc.worstEntry] as number] as Reading, ctx),
+    shortRule,
+    unverifiedLevels: LEVELS.filter((l) => acc.unverified.has(l)),
+  };
 }
 
 /** Ids of readings replaced by a later correction; the file was validated, so chains end and never loop. */
@@ -205,9 +259,19 @@ function gradeRound(
   ctx: SeamContext,
   unverified: Set<string>,
   superseded: readonly string[],
+  detail: GradeOptions['readings'],
 ): RoundGrade {
-  const grades = readings.map((r) => gradeReading(r, ctx));
-  const imperfections = summarise(readings, grades, ctx, unverified);
+  const cols = gradeColumns(readings, ctx);
+  const { rows, borderline } = accumulate(readings, cols, ctx);
+  const imperfections: ImperfectionSummary[] = [];
+  let worst: { key: SpotKey; spot: WorstSpot } | null = null;
+  for (const acc of rows.values()) {
+    const summary = summarise(acc, readings, cols, ctx);
+    imperfections.push(summary);
+    if (summary.unverifiedLevels.length) unverified.add(summary.rowId);
+    if (!worst || isWorse(acc.worstKey, worst.key)) worst = { key: acc.worstKey, spot: summary.worst };
+  }
+  imperfections.sort((a, b) => a.rowId.localeCompare(b.rowId, 'en', { numeric: true }));
   const checklist = gradeChecklist(round.checklist, ctx.tMin, ctx.required);
   let level: LevelMet | null = null;
   let ok = true;
@@ -220,17 +284,8 @@ function gradeRound(
     level = level === null ? item.levelMet : worseLevel(level, item.levelMet);
     ok &&= item.meetsRequired === true;
   }
-  let worst: (WorstSpot & { rel: number }) | null = null;
-  let borderlineCount = 0;
-  for (const rg of grades) {
-    for (const g of rg.imperfections) {
-      if (g.borderline) borderlineCount++;
-      const s = spot(rg, g);
-      if (!worst || worseSpot(s, worst)) worst = s;
-    }
-  }
   const complete = checklist.state === 'complete';
-  return {
+  const grade: RoundGrade = {
     round: round.number,
     kind: round.kind,
     complete,
@@ -238,11 +293,13 @@ function gradeRound(
     meetsRequired: complete ? ok : null,
     imperfections,
     checklist,
-    worst: worst ? strip(worst) : null,
-    borderlineCount,
-    readings: grades,
+    worst: worst?.spot ?? null,
+    borderlineCount: borderline,
+    readingCount: readings.length,
+    readings: detail === 'columns' ? [] : readings.map((r, i) => materialiseReading(cols, i, r, ctx)),
     supersededReadings: superseded,
   };
+  return detail === 'columns' ? { ...grade, columns: cols, readingIds: readings.map((r) => r.id) } : grade;
 }
 
 /**
@@ -252,6 +309,7 @@ function gradeRound(
 export function gradeSeam(
   file: SeamFile,
   criteria: CriteriaSet = BUILT_IN_CRITERIA[file.seam.acceptance.edition],
+  options: GradeOptions = {},
 ): SeamGrade {
   const required = requiredLevels(file.seam);
   const ctx = seamContext(file.seam, criteria.rows, required);
@@ -279,6 +337,7 @@ export function gradeSeam(
         ctx,
         unverified,
         supersededByRound.get(round.number) ?? [],
+        options.readings,
       ),
     );
   const latestComplete = [...rounds].reverse().find((r) => r.complete) ?? null;
@@ -286,9 +345,9 @@ export function gradeSeam(
   if (required.presetNote) notes.push(required.presetNote);
   if (criteria.edition === 'ISO 5817:2023') notes.push(...ISO5817_2023_NOT_HANDLED);
   for (const r of rounds) {
-    if (r.readings.length === 0) notes.push(`round ${r.round} has no readings: only its checklist is graded`);
+    if (r.readingCount === 0) notes.push(`round ${r.round} has no readings: only its checklist is graded`);
     const points = r.imperfections.reduce(
-      (n, s) => n + s.shortRule.reduce((m, c) => m + c.pointReadings, 0),
+      (n, s) => n + Math.max(0, ...s.shortRule.map((c) => c.pointReadings)),
       0,
     );
     if (points)

@@ -54,7 +54,7 @@ export function checkShortRule(
   circumferential: boolean,
 ): ShortRuleCheck {
   if (seamLength < SHORT_WINDOW_MM) {
-    const total = merge(stretches).reduce((sum, s) => sum + (s.end - s.start), 0);
+    const total = Math.round(merge(stretches).reduce((sum, s) => sum + (s.end - s.start), 0) * 1e6) / 1e6;
     const allowed = SHORT_ALLOWED_FRACTION * seamLength;
     return {
       worstMm: total,

@@ -32,20 +32,37 @@ export function quantity(
 ): v.GenericSchema<number, number> {
   const u = unit === 'deg' ? '°' : ` ${unit}`;
   const because = why ? ` (${why})` : '';
-  const bound = range.minExclusive ? 'greater than' : 'at least';
-  const lower = v.check<number, (i: v.CheckIssue<number>) => string>(
-    (x) => (range.minExclusive ? x > range.min : x >= range.min),
-    (i) => `must be ${bound} ${range.min}${u}${because}; got ${String(i.input)}`,
+  const num = v.number(
+    (i) =>
+      `must be a number in ${unit === 'deg' ? 'degrees' : unit} (write 12, not "12 ${unit}"); got ${i.received}`,
   );
-  return v.pipe(
-    v.number(
-      (i) =>
-        `must be a number in ${unit === 'deg' ? 'degrees' : unit} (write 12, not "12 ${unit}"); got ${i.received}`,
-    ),
-    v.finite((i) => `must be a finite number; got ${i.received}`),
-    lower,
-    v.maxValue(range.max, (i) => `must be at most ${range.max}${u}; got ${i.received}`),
+  const finite = v.finite<number, (i: v.FiniteIssue<number>) => string>(
+    (i) => `must be a finite number; got ${i.received}`,
   );
+  const upper = v.maxValue<number, number, (i: v.MaxValueIssue<number, number>) => string>(
+    range.max,
+    (i) => `must be at most ${range.max}${u}; got ${i.received}`,
+  );
+  // Two pipes rather than one with a chosen action, so each bound stays a plain action a JSON Schema can express.
+  return range.minExclusive
+    ? v.pipe(
+        num,
+        finite,
+        v.gtValue<number, number, (i: v.GtValueIssue<number, number>) => string>(
+          range.min,
+          (i) => `must be greater than ${range.min}${u}${because}; got ${i.received}`,
+        ),
+        upper,
+      )
+    : v.pipe(
+        num,
+        finite,
+        v.minValue<number, number, (i: v.MinValueIssue<number, number>) => string>(
+          range.min,
+          (i) => `must be at least ${range.min}${u}${because}; got ${i.received}`,
+        ),
+        upper,
+      );
 }
 
 export function text(maxLength: number, what = 'text'): v.GenericSchema<string, string> {
@@ -99,6 +116,8 @@ export function formatPath(path: readonly { key: unknown }[] | undefined): strin
   let out = '';
   for (const { key } of path) {
     if (typeof key === 'number') out += `[${key}]`;
+    // A key that would not read back from a dotted path (empty, or holding dots, brackets or spaces) is quoted.
+    else if (!/^[^.[\]"\s]+$/.test(String(key))) out += `[${JSON.stringify(String(key))}]`;
     else out += out ? `.${String(key)}` : String(key);
   }
   return out;

@@ -1,0 +1,149 @@
+import { marginTo, passesLimit } from '../criteria/limit.js';
+import type { LimitExpr } from '../criteria/types.js';
+import { readingSide } from '../model/joint.js';
+import { LEVELS } from '../model/levels.js';
+import { PARAMETER_NAMES, type ParameterName } from '../model/parameters.js';
+import type { Reading } from '../model/seam-file.js';
+import { limitSetFor, measuredQuantity, thicknessFor, type SeamContext } from './context.js';
+
+/** Level met as a rank: 3 = B, 2 = C, 1 = D, 0 = below D (same order as levelRank). */
+export const RANK_NONE = 255;
+export const FLAG_BORDERLINE = 1;
+export const FLAG_NO_RESOLUTION = 2;
+export const FLAG_NOMINAL_THROAT = 4;
+
+/**
+ * Grades of many readings in columns: one entry per (reading, imperfection row), the entries of a reading
+ * contiguous. Typed arrays keep a 100,000-reading import cheap to grade and to send across the worker boundary;
+ * objects for display are made per reading on demand (materialiseReading).
+ */
+export interface GradeColumns {
+  readonly size: number;
+  readonly reading: Uint32Array;
+  readonly limitSet: Uint32Array;
+  readonly measured: Float64Array;
+  /** Distance inside the governing limit (negative outside); NaN when the limit is "unlimited". */
+  readonly margin: Float64Array;
+  readonly rank: Uint8Array;
+  /** Bit i set when the value passes the limit at LEVELS[i]. */
+  readonly mask: Uint8Array;
+  readonly flags: Uint8Array;
+  readonly thickness: Float64Array;
+  /** Per reading: worst rank over its entries (RANK_NONE when nothing was graded), first entry and count. */
+  readonly readingRank: Uint8Array;
+  readonly readingFirst: Uint32Array;
+  readonly readingCount: Uint32Array;
+  /** Per reading: bit masks (by PARAMETER_NAMES index) of values present and values that entered a grade. */
+  readonly readingPresent: Uint32Array;
+  readonly readingGraded: Uint32Array;
+}
+
+export const PARAM_BIT = Object.fromEntries(PARAMETER_NAMES.map((n, i) => [n, 1 << i])) as Record<
+  ParameterName,
+  number
+>;
+
+type Mutable = { -readonly [K in keyof GradeColumns]: GradeColumns[K] };
+
+function grow(c: Mutable, capacity: number): void {
+  const copy = <T extends Uint32Array | Float64Array | Uint8Array>(a: T, make: new (n: number) => T): T => {
+    const next = new make(capacity);
+    next.set(a);
+    return next;
+  };
+  c.reading = copy(c.reading, Uint32Array);
+  c.limitSet = copy(c.limitSet, Uint32Array);
+  c.measured = copy(c.measured, Float64Array);
+  c.margin = copy(c.margin, Float64Array);
+  c.rank = copy(c.rank, Uint8Array);
+  c.mask = copy(c.mask, Uint8Array);
+  c.flags = copy(c.flags, Uint8Array);
+  c.thickness = copy(c.thickness, Float64Array);
+}
+
+export function gradeColumns(readings: readonly Reading[], ctx: SeamContext): GradeColumns {
+  const n = readings.length;
+  const initial = Math.max(16, n * 4);
+  const c: Mutable = {
+    size: 0,
+    reading: new Uint32Array(initial),
+    limitSet: new Uint32Array(initial),
+    measured: new Float64Array(initial),
+    margin: new Float64Array(initial),
+    rank: new Uint8Array(initial),
+    mask: new Uint8Array(initial),
+    flags: new Uint8Array(initial),
+    thickness: new Float64Array(initial),
+    readingRank: new Uint8Array(n),
+    readingFirst: new Uint32Array(n),
+    readingCount: new Uint32Array(n),
+    readingPresent: new Uint32Array(n),
+    readingGraded: new Uint32Array(n),
+  };
+  const levels = LEVELS.length;
+  for (let ri = 0; ri < n; ri++) {
+    const r = readings[ri] as Reading;
+    const side = readingSide(r);
+    const resolutionMm = r.instrument.resolutionMm;
+    const resolutionDeg = r.instrument.resolutionDeg;
+    let present = 0;
+    let graded = 0;
+    let worst = RANK_NONE;
+    c.readingFirst[ri] = c.size;
+    for (const name of PARAMETER_NAMES) {
+      if (r.values[name] === undefined) continue;
+      present |= PARAM_BIT[name];
+      const infos = ctx.rowsByParameter.get(name);
+      if (!infos) continue;
+      for (const info of infos) {
+        const row = info.row;
+        if (row.applies.side !== undefined && row.applies.side !== side) continue;
+        if (row.quantity === 'legDifference' && ctx.asymmetryPrescribed) continue;
+        const raw = measuredQuantity(row, r, ctx);
+        if (raw === undefined) continue;
+        // Derived quantities (3 − 2.8) are kept to the micrometre, like the limits, so equality passes.
+        const measured = Math.round(raw * 1e6) / 1e6;
+        const t = thicknessFor(row, r, ctx);
+        let a = ctx.seam.nominalThroat;
+        let flags = 0;
+        if (row.throat === 'actual') {
+          if (r.values.throat !== undefined) a = r.values.throat;
+          else flags |= FLAG_NOMINAL_THROAT;
+        }
+        const set = limitSetFor(ctx, info, t, a, r.values.reinforcementWidth);
+        if (set.missing !== null) continue;
+        let mask = 0;
+        for (let i = 0; i < levels; i++) {
+          if (passesLimit(set.exprs[i] as LimitExpr, set.values[i] as number, measured)) mask |= 1 << i;
+        }
+        // Nested levels: a level is met only when every less stringent level is met too.
+        let rank = 0;
+        for (let i = levels - 1; i >= 0 && (mask >> i) & 1; i--) rank = levels - i;
+        const gi = info.governingIndex;
+        const margin = marginTo(set.exprs[gi] as LimitExpr, set.values[gi] as number, measured);
+        const resolution = row.unit === 'deg' ? resolutionDeg : resolutionMm;
+        if (resolution === undefined) flags |= FLAG_NO_RESOLUTION;
+        else if (margin !== null && Math.abs(margin) <= resolution + 1e-9) flags |= FLAG_BORDERLINE;
+        if (c.size === c.reading.length) grow(c, c.reading.length * 2);
+        const e = c.size++;
+        c.reading[e] = ri;
+        c.limitSet[e] = set.index;
+        c.measured[e] = measured;
+        c.margin[e] = margin ?? NaN;
+        c.rank[e] = rank;
+        c.mask[e] = mask;
+        c.flags[e] = flags;
+        c.thickness[e] = t;
+        if (worst === RANK_NONE || rank < worst) worst = rank;
+        graded |= PARAM_BIT[name];
+        if (row.quantity === 'legDifference') graded |= PARAM_BIT.leg2;
+        if (info.usesWidth) graded |= PARAM_BIT.reinforcementWidth;
+      }
+    }
+    c.readingRank[ri] = worst;
+    c.readingCount[ri] = c.size - (c.readingFirst[ri] as number);
+    c.readingPresent[ri] = present;
+    c.readingGraded[ri] = graded;
+  }
+  return c;
+}
