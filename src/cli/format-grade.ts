@@ -46,7 +46,7 @@ function imperfectionRows(list: readonly ImperfectionSummary[]): string {
       levelText(s.levelMet),
       s.required,
       s.meetsRequired ? 'meets' : 'FAILS',
-      s.unverifiedLevels.length ? `unverified at ${s.unverifiedLevels.join(',')}` : 'transcribed',
+      s.unverifiedLevels.length ? `unverified at ${s.unverifiedLevels.join(',')}` : s.limitStatus,
     ];
   });
   return pad([head, ...rows]);

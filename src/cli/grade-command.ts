@@ -15,18 +15,25 @@ export const MAX_FILE_BYTES = 64 * 1024 * 1024;
 export class InputError extends Error {}
 
 async function readJson(path: string, what: string): Promise<unknown> {
-  let size: number;
+  let info;
   try {
-    size = (await stat(path)).size;
+    info = await stat(path);
   } catch {
     throw new InputError(`${what} "${path}" cannot be read: no such file, or no permission`);
   }
-  if (size > MAX_FILE_BYTES) {
+  if (!info.isFile()) throw new InputError(`${what} "${path}" is not a file`);
+  if (info.size > MAX_FILE_BYTES) {
+    const mib = (n: number) => (n / 1024 / 1024).toFixed(1);
     throw new InputError(
-      `${what} "${path}" is ${Math.round(size / 1e6)} MB; at most ${MAX_FILE_BYTES / 1024 / 1024} MB is accepted`,
+      `${what} "${path}" is ${mib(info.size)} MiB; at most ${mib(MAX_FILE_BYTES)} MiB is accepted`,
     );
   }
-  const text = (await readFile(path, 'utf8')).replace(/^\uFEFF/, '');
+  let text: string;
+  try {
+    text = (await readFile(path, 'utf8')).replace(/^\uFEFF/, '');
+  } catch (e) {
+    throw new InputError(`${what} "${path}" cannot be read: ${(e as Error).message}`);
+  }
   try {
     return JSON.parse(text) as unknown;
   } catch (e) {

@@ -18,9 +18,13 @@ Exit codes: 0 graded (whatever the level), 2 invalid input, 1 unexpected failure
 
 async function main(argv: string[]): Promise<number> {
   const [command, ...rest] = argv;
-  if (!command || command === '--help' || command === '-h' || command === 'help') {
+  if (!command) {
+    process.stderr.write(`${USAGE}\n`);
+    return 2;
+  }
+  if (command === '--help' || command === '-h' || command === 'help') {
     process.stdout.write(`${USAGE}\n`);
-    return command ? 0 : 2;
+    return 0;
   }
   if (command === 'schema') {
     const [name, ...extra] = rest;

@@ -4,21 +4,20 @@ import { BUILT_IN_CRITERIA } from './criteria/registry.js';
 import { CHECKLIST_RULES } from './grade/checklist.js';
 import { jointFamily, readingSide } from './model/joint.js';
 import { PARAMETERS, PARAMETER_NAMES } from './model/parameters.js';
-import { seamFileSchema, type Reading, type SeamFile } from './model/seam-file.js';
+import { EDITIONS, seamFileSchema, type Edition, type Reading, type SeamFile } from './model/seam-file.js';
 import { toProblems, type Problem } from './model/schema-kit.js';
 
 export type Parsed<T> =
   { readonly ok: true; readonly value: T } | { readonly ok: false; readonly problems: Problem[] };
 
-/** Every ISO 6520-1 number an override may name: the gauge rows and the checklist items. */
-function knownRefs(): Set<string> {
+/** The ISO 6520-1 numbers an override may name in an edition: its gauge rows and the checklist items. */
+function knownRefs(edition: Edition): Set<string> {
   const refs = new Set<string>();
-  for (const set of Object.values(BUILT_IN_CRITERIA))
-    for (const row of set.rows) row.refs.forEach((r) => refs.add(r));
+  for (const row of BUILT_IN_CRITERIA[edition].rows) row.refs.forEach((r) => refs.add(r));
   for (const rule of Object.values(CHECKLIST_RULES)) refs.add(rule.ref);
   return refs;
 }
-const KNOWN_REFS = knownRefs();
+const KNOWN_REFS = new Map(EDITIONS.map((e) => [e, knownRefs(e)]));
 
 function checkSeam(file: SeamFile, problems: Problem[]): void {
   const { seam } = file;
@@ -39,11 +38,12 @@ function checkSeam(file: SeamFile, problems: Problem[]): void {
       message: `${acc.preset} asks level ${EXECUTION_CLASS_PRESETS[acc.preset].level} but level says ${acc.level}: give one of them, or use overrides for single imperfections`,
     });
   }
+  const known = KNOWN_REFS.get(acc.edition) ?? new Set<string>();
   for (const key of Object.keys(acc.overrides ?? {})) {
-    if (!KNOWN_REFS.has(key)) {
+    if (!known.has(key)) {
       problems.push({
         path: `seam.acceptance.overrides.${key}`,
-        message: `unknown ISO 6520-1 number; known: ${[...KNOWN_REFS].sort().join(', ')}`,
+        message: `not an ISO 6520-1 number ${acc.edition} grades; known: ${[...known].sort().join(', ')}`,
       });
     }
   }
@@ -113,6 +113,21 @@ function checkPosition(
         message: `${longParams.join(', ')} ${longParams.length > 1 ? 'are' : 'is'} measured at a position, not along a length: record ${longParams.length > 1 ? 'them' : 'it'} in a reading with a position`,
       });
     }
+  }
+}
+
+function checkWithdrawal(r: Reading, i: number, problems: Problem[]): void {
+  if (r.supersedes === undefined) {
+    problems.push({
+      path: `readings[${i}].supersedes`,
+      message: 'a withdrawal must name the reading it withdraws',
+    });
+  }
+  if (PARAMETER_NAMES.some((n) => r.values[n] !== undefined)) {
+    problems.push({
+      path: `readings[${i}].values`,
+      message: 'a withdrawal carries no values: record a correction instead',
+    });
   }
 }
 
@@ -188,13 +203,13 @@ function checkValues(file: SeamFile, r: Reading, i: number, problems: Problem[])
   ) {
     problems.push({
       path: 'seam.nominalThroat',
-      message: `is needed to grade ${at}: the throat, root-gap and asymmetry limits are written in a`,
+      message: `is needed to grade ${at}: the throat, root-gap and asymmetry limits are written in terms of the nominal throat a`,
     });
   }
   if (v.poreDiameter !== undefined && family === 'fillet' && seam.nominalThroat === undefined) {
     problems.push({
       path: 'seam.nominalThroat',
-      message: `is needed to grade ${at}: the fillet pore limit is written in a`,
+      message: `is needed to grade ${at}: the fillet pore limit is written in terms of the nominal throat a`,
     });
   }
   if (v.incompleteRootPenetration !== undefined && seam.joint.sides !== 'one') {
@@ -308,6 +323,10 @@ export function parseSeamFile(input: unknown): Parsed<SeamFile> {
   checkReferences(file, problems);
   file.readings.forEach((r, i) => {
     if (problems.length >= MAX_PROBLEMS) return;
+    if (r.withdrawn) {
+      checkWithdrawal(r, i, problems);
+      return;
+    }
     checkPosition(r, i, file.seam.length, file.seam.circumferential, problems);
     checkValues(file, r, i, problems);
   });

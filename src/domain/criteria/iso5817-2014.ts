@@ -307,7 +307,7 @@ export const ISO5817_2014_ROWS: readonly CriterionRow[] = [
     bands: [
       band(
         undefined,
-        lim(max({ c: 2, a: 0.2 }), 'S', 'S5'),
+        lim(max({ c: 2, a: 0.2 }), 'M-hi', 'S5 (EN 25817) only; recalled for 2014'),
         lim(max({ c: 2, a: 0.15 }), 'S', 'S3, S5'),
         lim(max({ c: 1.5, a: 0.15 }), 'S', 'S4, S5'),
       ),
@@ -381,7 +381,7 @@ export const ISO5817_2014_ROWS: readonly CriterionRow[] = [
       band(
         undefined,
         lim({ kind: 'unlimited' }, 'M-hi', 'recalled'),
-        lim(max({ c: 1, a: 0.2, cap: 4 }), 'S', 'S5'),
+        lim(max({ c: 1, a: 0.2, cap: 4 }), 'M-hi', 'S5 (EN 25817) only; recalled for 2014'),
         lim(max({ c: 1, a: 0.15, cap: 3 }), 'S', 'S4'),
       ),
     ],
@@ -453,9 +453,9 @@ export const ISO5817_2014_ROWS: readonly CriterionRow[] = [
       ),
       band(
         undefined,
-        lim(max({ c: 1, a: 0.3, cap: 4 }), 'S', 'S5'),
-        lim(max({ c: 0.5, a: 0.2, cap: 3 }), 'S', 'S5'),
-        lim(max({ c: 0.5, a: 0.1, cap: 2 }), 'S', 'S5'),
+        lim(max({ c: 1, a: 0.3, cap: 4 }), 'M-med', 'S5 (EN 25817) and 2023 text (S8); inferred for 2014'),
+        lim(max({ c: 0.5, a: 0.2, cap: 3 }), 'M-med', 'S5 (EN 25817) and 2023 text (S8); inferred for 2014'),
+        lim(max({ c: 0.5, a: 0.1, cap: 2 }), 'M-med', 'S5 (EN 25817) and 2023 text (S8); inferred for 2014'),
       ),
     ],
   },

@@ -1,7 +1,7 @@
 import { GRADE_CAUTION } from '../caution.js';
 import { BUILT_IN_CRITERIA } from '../criteria/registry.js';
 import { ISO5817_2023_NOT_HANDLED } from '../criteria/iso5817-2023.js';
-import type { CriteriaSet } from '../criteria/types.js';
+import type { CriteriaSet, LimitStatus } from '../criteria/types.js';
 import { LEVELS, meets, worseLevel, levelRank, type Level, type LevelMet } from '../model/levels.js';
 import type { Reading, SeamFile } from '../model/seam-file.js';
 import { gradeChecklist, type ChecklistGrade } from './checklist.js';
@@ -26,6 +26,8 @@ export interface ImperfectionSummary {
   /** Short-imperfection rule per level where the row permits short imperfections only. */
   readonly shortRule: readonly (ShortRuleCheck & { readonly level: Level; readonly pointReadings: number })[];
   readonly unverifiedLevels: readonly Level[];
+  /** The weakest status among the limits in play: unverified, transcribed, or verified when all were loaded checked. */
+  readonly limitStatus: LimitStatus;
 }
 
 export interface WorstSpot {
@@ -122,6 +124,7 @@ interface RowAccumulator {
   worstEntry: number;
   lastSet: number;
   readonly unverified: Set<Level>;
+  allVerified: boolean;
   /** Readings of present imperfections within a short-only limit, per level index. */
   readonly shortCounted: (number[] | undefined)[];
 }
@@ -159,6 +162,7 @@ function accumulate(
         worstEntry: e,
         lastSet: -1,
         unverified: new Set(),
+        allVerified: true,
         shortCounted: [],
       };
       rows.set(set.rowIndex, acc);
@@ -178,6 +182,7 @@ function accumulate(
       acc.lastSet = setIndex;
       set.byLevel.forEach((pair, i) => {
         if (pair[0].status === 'unverified') acc.unverified.add(LEVELS[i] as Level);
+        if (pair[0].status !== 'verified') acc.allVerified = false;
       });
     }
     if ((cols.measured[e] as number) > 0) {
@@ -243,6 +248,7 @@ function summarise(
     worst: spotOf(cols, acc.worstEntry, readings[cols.reading[acc.worstEntry] as number] as Reading, ctx),
     shortRule,
     unverifiedLevels: LEVELS.filter((l) => acc.unverified.has(l)),
+    limitStatus: acc.unverified.size ? 'unverified' : acc.allVerified ? 'verified' : 'transcribed',
   };
 }
 
@@ -320,6 +326,7 @@ export function gradeSeam(
   // A stable order makes the result independent of the order readings arrive in.
   const ordered = [...file.readings].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   for (const r of ordered) {
+    if (r.withdrawn) continue;
     if (superseded.has(r.id)) {
       supersededByRound.set(r.round, [...(supersededByRound.get(r.round) ?? []), r.id]);
       continue;

@@ -104,10 +104,12 @@ export function count(min: number, max: number): v.GenericSchema<number, number>
 }
 
 export function list<T extends v.GenericSchema>(item: T, min: number, max: number, what: string) {
+  // The count is checked before any item, so an oversized list is refused without validating every entry.
   return v.pipe(
-    v.array(item, (i) => `${what} must be a list; got ${i.received}`),
+    v.array(v.unknown(), (i) => `${what} must be a list; got ${i.received}`),
     v.minLength(min, `${what} must hold at least ${min} item${min === 1 ? '' : 's'}`),
     v.maxLength(max, (i) => `${what} holds ${i.received} items; at most ${max} are accepted`),
+    v.array(item),
   );
 }
 

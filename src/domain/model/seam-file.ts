@@ -180,6 +180,10 @@ export const readingSchema = obj('reading', {
   recordedAt: isoTimestamp(),
   device: v.optional(text(64)),
   supersedes: v.optional(text(64, 'an id')),
+  /** Withdraws the reading it supersedes (an undo) without replacing it; carries no values. Nothing is deleted. */
+  withdrawn: v.optional(
+    v.literal(true, 'must be true when present (a withdrawal of the superseded reading)'),
+  ),
 });
 
 export const seamFileSchema = obj('seam file', {
