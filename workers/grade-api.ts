@@ -3,6 +3,7 @@ import {
   BUILT_IN_CRITERIA,
   gradeSeam,
   parseSeamFile,
+  type ParseOptions,
   type Problem,
   type SeamGrade,
 } from '../src/domain/index.js';
@@ -15,8 +16,8 @@ export type GradeReply =
  * so a caller never gets a grade for a file that failed validation.
  */
 export const gradeApi = {
-  grade(seamFile: unknown, limitsFile?: unknown): GradeReply {
-    const parsed = parseSeamFile(seamFile);
+  grade(seamFile: unknown, limitsFile?: unknown, options: ParseOptions = {}): GradeReply {
+    const parsed = parseSeamFile(seamFile, options);
     if (!parsed.ok) return { ok: false, problems: parsed.problems };
     let criteria = BUILT_IN_CRITERIA[parsed.value.seam.acceptance.edition];
     if (limitsFile !== undefined) {
@@ -26,8 +27,8 @@ export const gradeApi = {
     }
     return { ok: true, grade: gradeSeam(parsed.value, criteria) };
   },
-  validate(seamFile: unknown): Problem[] {
-    const parsed = parseSeamFile(seamFile);
+  validate(seamFile: unknown, options: ParseOptions = {}): Problem[] {
+    const parsed = parseSeamFile(seamFile, options);
     return parsed.ok ? [] : parsed.problems;
   },
 };

@@ -4,7 +4,14 @@ import { BUILT_IN_CRITERIA } from './criteria/registry.js';
 import { CHECKLIST_RULES } from './grade/checklist.js';
 import { jointFamily, readingSide } from './model/joint.js';
 import { PARAMETERS, PARAMETER_NAMES } from './model/parameters.js';
-import { EDITIONS, seamFileSchema, type Edition, type Reading, type SeamFile } from './model/seam-file.js';
+import {
+  EDITIONS,
+  seamFileSchema,
+  seamRecordSchema,
+  type Edition,
+  type Reading,
+  type SeamFile,
+} from './model/seam-file.js';
 import { toProblems, type Problem } from './model/schema-kit.js';
 
 export type Parsed<T> =
@@ -307,7 +314,12 @@ function checkReferences(file: SeamFile, problems: Problem[]): void {
 const MAX_PROBLEMS = 50;
 
 /** Validates a seam file at the boundary: the schema first, then what relates fields to each other. */
-export function parseSeamFile(input: unknown): Parsed<SeamFile> {
+export interface ParseOptions {
+  /** Accept a seam with no readings yet (the app's own records); files handed to the grader need one. */
+  readonly allowNoReadings?: boolean;
+}
+
+export function parseSeamFile(input: unknown, options: ParseOptions = {}): Parsed<SeamFile> {
   if (Array.isArray(input)) {
     return {
       ok: false,
@@ -315,7 +327,8 @@ export function parseSeamFile(input: unknown): Parsed<SeamFile> {
     };
   }
   // Every field is checked, but each field reports only its first fault (Infinity is "not finite", not also "too big").
-  const parsed = v.safeParse(seamFileSchema, input, { abortEarly: false, abortPipeEarly: true });
+  const schema = options.allowNoReadings ? seamRecordSchema : seamFileSchema;
+  const parsed = v.safeParse(schema, input, { abortEarly: false, abortPipeEarly: true });
   if (!parsed.success) return { ok: false, problems: toProblems(parsed.issues).slice(0, MAX_PROBLEMS) };
   const file = parsed.output;
   const problems: Problem[] = [];

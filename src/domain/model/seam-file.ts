@@ -186,7 +186,7 @@ export const readingSchema = obj('reading', {
   ),
 });
 
-export const seamFileSchema = obj('seam file', {
+const seamFileEntries = (minReadings: number) => ({
   format: v.literal(SEAM_FILE_FORMAT, `must be "${SEAM_FILE_FORMAT}"`),
   units: obj('units', {
     length: v.literal('mm', 'only "mm" is accepted: convert lengths to millimetres before grading'),
@@ -194,8 +194,14 @@ export const seamFileSchema = obj('seam file', {
   }),
   seam: seamSchema,
   rounds: list(roundSchema, 1, 999, 'rounds'),
-  readings: list(readingSchema, 1, MAX_READINGS, 'readings'),
+  readings: list(readingSchema, minReadings, MAX_READINGS, 'readings'),
 });
+
+/** A seam file handed over for grading: it must hold at least one reading. */
+export const seamFileSchema = obj('seam file', seamFileEntries(1));
+
+/** A seam as the app keeps it: a seam just set up may have no readings yet (its checklist still grades). */
+export const seamRecordSchema = obj('seam record', seamFileEntries(0));
 
 export type SeamFile = v.InferOutput<typeof seamFileSchema>;
 export type Seam = v.InferOutput<typeof seamSchema>;
