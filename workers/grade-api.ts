@@ -1,15 +1,18 @@
 import {
   applyVerifiedTable,
+  assessSeam,
   BUILT_IN_CRITERIA,
   gradeSeam,
   parseSeamFile,
   type ParseOptions,
   type Problem,
+  type SeamAssessment,
   type SeamGrade,
 } from '../src/domain/index.js';
 
 export type GradeReply =
-  { readonly ok: true; readonly grade: SeamGrade } | { readonly ok: false; readonly problems: Problem[] };
+  | { readonly ok: true; readonly grade: SeamGrade; readonly assessment: SeamAssessment }
+  | { readonly ok: false; readonly problems: Problem[] };
 
 /**
  * What the grading worker exposes. Input crosses the worker boundary as plain data and is validated here,
@@ -25,7 +28,9 @@ export const gradeApi = {
       if (!loaded.ok) return { ok: false, problems: loaded.problems };
       criteria = loaded.criteria;
     }
-    return { ok: true, grade: gradeSeam(parsed.value, criteria) };
+    const grade = gradeSeam(parsed.value, criteria);
+    // km, Kt, FAT, life and sampling adequacy ride along with the grade; each part carries the indicative caution.
+    return { ok: true, grade, assessment: assessSeam(parsed.value, grade) };
   },
   validate(seamFile: unknown, options: ParseOptions = {}): Problem[] {
     const parsed = parseSeamFile(seamFile, options);

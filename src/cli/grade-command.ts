@@ -1,6 +1,7 @@
 import { readFile, stat } from 'node:fs/promises';
 import {
   applyVerifiedTable,
+  assessSeam,
   BUILT_IN_CRITERIA,
   describeProblems,
   gradeSeam,
@@ -8,6 +9,7 @@ import {
   type CriteriaSet,
   type Problem,
 } from '../domain/index.js';
+import { formatAssessment } from './format-assessment.js';
 import { formatGrade } from './format-grade.js';
 
 export const MAX_FILE_BYTES = 64 * 1024 * 1024;
@@ -63,5 +65,8 @@ export async function gradeCommand(opts: GradeOptions): Promise<string> {
     criteria = loaded.criteria;
   }
   const grade = gradeSeam(parsed.value, criteria);
-  return opts.json ? JSON.stringify(grade, null, 2) : formatGrade(grade);
+  const assessment = assessSeam(parsed.value, grade);
+  return opts.json
+    ? JSON.stringify({ ...grade, assessment }, null, 2)
+    : `${formatGrade(grade)}\n\n${formatAssessment(assessment)}`;
 }

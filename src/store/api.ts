@@ -57,6 +57,34 @@ export interface ReadingRecord {
 
 export type OutboxKind = 'seamSetup' | 'round' | 'checklistAnswer' | 'reading';
 
+/**
+ * What each kind of outbox entry carries as its body (added with the store; `OutboxEntry.body` stays `unknown` for
+ * readers that only pass it on). Times come from the device clock and are informative only.
+ */
+export interface OutboxBodies {
+  readonly seamSetup: {
+    readonly seamId: string;
+    readonly revision: number;
+    readonly seam: Seam;
+    readonly savedAt: string;
+  };
+  readonly round: {
+    readonly seamId: string;
+    readonly number: number;
+    readonly kind: Round['kind'];
+    readonly startedAt: string;
+    readonly examiner?: RoundRecord['examiner'];
+  };
+  readonly checklistAnswer: {
+    readonly seamId: string;
+    readonly round: number;
+    readonly item: ChecklistItem;
+    readonly answer: ChecklistAnswer;
+    readonly answeredAt: string;
+  };
+  readonly reading: { readonly seamId: string; readonly reading: Reading };
+}
+
 export interface OutboxEntry {
   /** Device sequence number (auto-increment): the order records were made on this device. */
   readonly seq: number;
@@ -86,6 +114,12 @@ export interface ImportReport {
   readonly seamsAdded: number;
   readonly seamsUpdated: number;
   readonly readingsAdded: number;
+  /** Rounds new to this device (added with the store). */
+  readonly roundsAdded: number;
+  /** Rounds here that gained checklist answers from the file, none of them contradicting (added with the store). */
+  readonly roundsUpdated: number;
+  /** Outbox entries restored so they still reach the server (added with the store). */
+  readonly outboxAdded: number;
   /** Records already present with identical content: skipped, never doubled. */
   readonly duplicatesSkipped: number;
   /** Records refused, with the reason; nothing else from the file is lost. */
@@ -96,7 +130,10 @@ export interface Store {
   health(): Promise<StoreHealth>;
   listSeams(): Promise<SeamRecord[]>;
   getSeam(id: string): Promise<SeamRecord | undefined>;
-  /** Creates the seam or saves a new revision of its set-up. */
+  /**
+   * Creates the seam (with its first round) or saves a new revision of its set-up. `namespace` applies to a new
+   * seam ('live' when not given); an existing seam keeps its own, and naming the other one is refused.
+   */
   saveSeam(seam: Seam, namespace?: Namespace): Promise<SeamRecord>;
   setSummary(seamId: string, summary: SeamSummary): Promise<void>;
   listRounds(seamId: string): Promise<RoundRecord[]>;
@@ -116,7 +153,9 @@ export interface Store {
   outboxEntries(limit?: number): Promise<OutboxEntry[]>;
   exportBackup(): Promise<BackupFile>;
   importBackup(data: unknown): Promise<ImportReport>;
+  /** Stores the demo yard in the 'demo' namespace; returns how many demo seams were added (0 when already loaded). */
   loadDemo(): Promise<number>;
+  /** Removes every demo record and nothing else; returns how many demo seams were removed. */
   removeDemo(): Promise<number>;
   close(): void;
 }

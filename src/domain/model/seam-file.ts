@@ -2,6 +2,7 @@ import * as v from 'valibot';
 import { CHECKLIST_ANSWERS, CHECKLIST_ITEMS } from './checklist.js';
 import { PARAMETER_NAMES, PARAMETERS, type ParameterName } from './parameters.js';
 import { LEVELS } from './levels.js';
+import { DETAIL_IDS } from '../fatigue/detail-ids.js';
 import { choice, count, isoDate, isoTimestamp, list, obj, quantity, text } from './schema-kit.js';
 
 export const SEAM_FILE_FORMAT = 'beadbook.seam/1';
@@ -71,6 +72,16 @@ const fatigue = obj('fatigue', {
   restraint: v.optional(choice(['clamped', 'pinned'])),
   freeLength1: v.optional(quantity('mm', { min: 0, max: 100_000, minExclusive: true })),
   freeLength2: v.optional(quantity('mm', { min: 0, max: 100_000, minExclusive: true })),
+  /** Whether the weld was examined by NDT as the fatigue classes ask (decides e.g. a one-sided weld's class). */
+  ndt: v.optional(v.boolean('must be true or false')),
+  /** Backing of a butt weld made from one side. */
+  backing: v.optional(choice(['none', 'temporary', 'permanent'])),
+  /** Whether the fillet welds of a T or cruciform joint carry the load (decides toe/root classes). */
+  loadCarrying: v.optional(v.boolean('must be true or false')),
+  /** A catalogue detail chosen by an engineer instead of the one the measured seam earns. */
+  detailOverride: v.optional(choice(DETAIL_IDS)),
+  /** A FAT chosen by an engineer instead of the catalogue's, in MPa at 2·10⁶ cycles. */
+  fatOverride: v.optional(quantity('MPa', { min: 1, max: 1000 })),
 });
 
 export const seamSchema = obj('seam', {

@@ -1,0 +1,118 @@
+import { supersededIds, type SeamGrade } from '../grade/seam.js';
+import { midPlaneOffset, readingSide } from '../model/joint.js';
+import type { Reading, SeamFile } from '../model/seam-file.js';
+import type { Measured, MisalignmentInputs } from './bending.js';
+import type { Setup } from './setup.js';
+
+/** Uncertainty used when an instrument's resolution is not recorded. */
+export const DEFAULT_RESOLUTION = { mm: 0.1, deg: 1 } as const;
+
+export interface RoundReadings {
+  readonly round: number | null;
+  readonly readings: readonly Reading[];
+  readonly note: string | null;
+}
+
+/** The readings in force in the round the seam is graded on (its latest complete round, else its latest round). */
+export function roundReadings(file: SeamFile, grade: SeamGrade): RoundReadings {
+  const superseded = supersededIds(file.readings);
+  const live = file.readings.filter((r) => !r.withdrawn && !superseded.has(r.id));
+  let round = grade.gradedRound;
+  let note: string | null = null;
+  if (round === null) {
+    const withReadings = grade.rounds.filter((r) => r.readingCount > 0);
+    round = withReadings[withReadings.length - 1]?.round ?? null;
+    if (round !== null) note = `no round is complete: round ${round}'s readings are assessed, provisionally`;
+  }
+  const readings = round === null ? [] : live.filter((r) => r.round === round);
+  readings.sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+  return { round, readings, note };
+}
+
+export const positionOf = (r: Reading): number => r.position ?? r.start ?? 0;
+
+export function resolutionOf(r: Reading, unit: 'mm' | 'deg'): { value: number; basis: string } {
+  const v = unit === 'mm' ? r.instrument.resolutionMm : r.instrument.resolutionDeg;
+  return v === undefined
+    ? { value: DEFAULT_RESOLUTION[unit], basis: `default ${DEFAULT_RESOLUTION[unit]} ${unit === 'mm' ? 'mm' : '°'} (resolution not recorded)` }
+    : { value: v, basis: `instrument ${r.instrument.id} resolution` };
+}
+
+/** The mid-plane offset e a reading gives (the gauge may read a surface step), or undefined. */
+export function midPlaneE(setup: Setup, r: Reading): number | undefined {
+  const read = r.values.linearMisalignment;
+  if (read === undefined) return undefined;
+  return midPlaneOffset(read, r.misalignmentBasis ?? 'midPlane', setup.t1, setup.t2);
+}
+
+function measured(r: Reading, value: number, unit: 'mm' | 'deg'): Measured {
+  const res = resolutionOf(r, unit);
+  return { readingId: r.id, position: positionOf(r), value, resolution: res.value, resolutionBasis: res.basis };
+}
+
+/** The most positive and most negative linear and angular misalignments of the round (targeted readings included). */
+export function misalignmentInputs(setup: Setup, readings: readonly Reading[]): MisalignmentInputs {
+  let eHi: Measured | null = null;
+  let eLo: Measured | null = null;
+  let aHi: Measured | null = null;
+  let aLo: Measured | null = null;
+  for (const r of readings) {
+    const e = midPlaneE(setup, r);
+    if (e !== undefined) {
+      if (!eHi || e > eHi.value) eHi = measured(r, e, 'mm');
+      if (!eLo || e < eLo.value) eLo = measured(r, e, 'mm');
+    }
+    const a = r.values.angularMisalignment;
+    if (a !== undefined) {
+      if (!aHi || a > aHi.value) aHi = measured(r, a, 'deg');
+      if (!aLo || a < aLo.value) aLo = measured(r, a, 'deg');
+    }
+  }
+  return { eHi, eLo, aHi, aLo };
+}
+
+type SideKey = 'reinforcementHeight' | 'convexity' | 'throat';
+
+interface SideEntry {
+  readonly atPosition: Map<number, Reading>;
+  largest: Reading | undefined;
+}
+
+/**
+ * Values measured on one side of the weld, to pair with a toe reading that lacks them: the same reading first,
+ * then a reading on that side at the same position, then the side's largest (conservative for Kt).
+ */
+export class SideValues {
+  private readonly index = new Map<string, SideEntry>();
+
+  constructor(readings: readonly Reading[]) {
+    for (const x of readings) {
+      for (const key of ['reinforcementHeight', 'convexity', 'throat'] as const) {
+        const v = x.values[key];
+        if (v === undefined) continue;
+        // A throat belongs to the fillet, not to a side.
+        const side = key === 'throat' ? 'any' : (readingSide(x) ?? 'none');
+        const id = `${key}|${side}`;
+        let entry = this.index.get(id);
+        if (!entry) {
+          entry = { atPosition: new Map(), largest: undefined };
+          this.index.set(id, entry);
+        }
+        const pos = positionOf(x);
+        if (!entry.atPosition.has(pos)) entry.atPosition.set(pos, x);
+        if (!entry.largest || v > (entry.largest.values[key] as number)) entry.largest = x;
+      }
+    }
+  }
+
+  get(r: Reading, side: 'face' | 'root', key: SideKey): { value: number; basis: string } | undefined {
+    const own = r.values[key];
+    if (own !== undefined) return { value: own, basis: 'same reading' };
+    const entry = this.index.get(`${key}|${key === 'throat' ? 'any' : side}`);
+    if (!entry) return undefined;
+    const same = entry.atPosition.get(positionOf(r));
+    if (same) return { value: same.values[key] as number, basis: `reading ${same.id} at the same position` };
+    const big = entry.largest;
+    return big ? { value: big.values[key] as number, basis: `largest on the ${key === 'throat' ? 'seam' : `${side} side`} (reading ${big.id})` } : undefined;
+  }
+}

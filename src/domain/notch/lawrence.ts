@@ -1,0 +1,19 @@
+import { outsideOf } from './range.js';
+
+const RAD = Math.PI / 180;
+
+/** α_L by joint (axial load), recalled: butt 0.27, T or transverse fillet 0.35. Not verified against the paper. */
+export const LAWRENCE_ALPHA = { butt: 0.27, fillet: 0.35 } as const;
+
+// Yung & Lawrence, Fatigue Fract. Eng. Mater. Struct. 8 (1985) 223–241: Kt = 1 + α_L·(tan θ)^¼·(t/ρ)^½, tension (recalled).
+export function lawrenceTension(alphaL: number, flankDeg: number, t: number, rho: number): number {
+  return 1 + alphaL * Math.tan(flankDeg * RAD) ** 0.25 * Math.sqrt(t / rho);
+}
+
+/** The formula states no validity range; θ must lie in 0° ≤ θ < 90° for tan θ to mean a flank. */
+export function lawrenceOutside(flankDeg: number, t: number, rho: number): string[] {
+  return outsideOf([
+    { name: 'flank angle θ (°)', value: flankDeg, min: 0, max: 89.999 },
+    { name: 't/ρ', value: t / rho, min: 0, max: Infinity, minExclusive: true },
+  ]);
+}

@@ -1,0 +1,170 @@
+import {
+  atLeastOne,
+  confidenceHalfWidth,
+  meanAndSd,
+  pitchOf,
+  positionsForHalfWidth,
+  predictiveBelow,
+  runningMeans,
+  settling,
+} from './statistics.js';
+
+export interface SamplePoint {
+  readonly readingId: string;
+  readonly position: number;
+  readonly value: number;
+  /** Distance inside the governing limit at the required level (negative outside); null when not graded. */
+  readonly margin: number | null;
+  readonly resolution: number | null;
+}
+
+export interface AdequacyInput {
+  readonly label: string;
+  readonly unit: 'mm' | 'deg';
+  readonly points: readonly SamplePoint[];
+  readonly seamLength: number;
+  readonly circumferential: boolean;
+  /** Target half-width of the 95 % interval; default: the coarsest instrument resolution among the readings. */
+  readonly target?: number;
+  readonly defaultResolution: number;
+  readonly requiredLevel: string | null;
+  /** Why the risk cannot be estimated from margins (no graded limit, or a grade in columns only). */
+  readonly riskUnavailable?: string;
+}
+
+export interface RunningPoint {
+  readonly position: number;
+  readonly count: number;
+  readonly mean: number;
+}
+
+export interface Risk {
+  readonly distribution: string;
+  readonly requiredLevel: string | null;
+  /** Probability that one unmeasured position falls outside the required level's limit. */
+  readonly onePosition: number;
+  readonly pitchMm: number | null;
+  readonly unmeasuredPositions: number;
+  /** Probability that at least one of the unmeasured positions does (positions assumed independent). */
+  readonly anyUnmeasured: number;
+  readonly meanMargin: number;
+  readonly sdMargin: number;
+}
+
+export interface Adequacy {
+  readonly label: string;
+  readonly unit: 'mm' | 'deg';
+  readonly count: number;
+  readonly mean: number;
+  readonly sd: number | null;
+  readonly ci95: { readonly low: number; readonly high: number; readonly halfWidth: number } | null;
+  readonly target: { readonly value: number; readonly basis: string };
+  readonly runningMean: readonly RunningPoint[];
+  readonly settled: boolean;
+  /** Positions after which the running mean stayed within ±target of the final mean. */
+  readonly settledAfter: number | null;
+  readonly positionsNeeded: number | null;
+  readonly morePositions: number | null;
+  readonly risk: Risk | { readonly notAssessed: string };
+  readonly advice: string;
+}
+
+const MAX_SERIES = 200;
+
+const fmt = (x: number, digits = 3): string => String(Number(x.toPrecision(digits)));
+const pct = (p: number): string =>
+  p < 0.001 ? 'under 0.1 %' : p > 0.999 ? 'over 99.9 %' : `${Number((100 * p).toPrecision(2))} %`;
+
+function series(positions: readonly number[], means: readonly number[]): RunningPoint[] {
+  const n = means.length;
+  const step = n > MAX_SERIES ? (n - 1) / (MAX_SERIES - 1) : 1;
+  const out: RunningPoint[] = [];
+  for (let k = 0; k < Math.min(n, MAX_SERIES); k++) {
+    const i = Math.round(k * step);
+    out.push({ position: positions[i] as number, count: i + 1, mean: means[i] as number });
+  }
+  return out;
+}
+
+function riskOf(input: AdequacyInput, ordered: readonly SamplePoint[]): Risk | { notAssessed: string } {
+  if (input.riskUnavailable) return { notAssessed: input.riskUnavailable };
+  const margins = ordered.map((p) => p.margin).filter((m): m is number => m !== null && Number.isFinite(m));
+  if (margins.length < 2) return { notAssessed: 'needs at least 2 graded at-pitch positions' };
+  const m = meanAndSd(margins);
+  const one = predictiveBelow(0, m.mean, m.sd, m.n);
+  const pitch = pitchOf(ordered.map((p) => p.position));
+  const distinct = new Set(ordered.map((p) => p.position)).size;
+  const slots = pitch && pitch > 0 ? Math.floor(input.seamLength / pitch) + (input.circumferential ? 0 : 1) : distinct;
+  const unmeasured = Math.max(0, slots - distinct);
+  return {
+    distribution:
+      'normal margins to the limit, fitted by mean and sample standard deviation; a new position follows the Student t predictive distribution',
+    requiredLevel: input.requiredLevel,
+    onePosition: one,
+    pitchMm: pitch,
+    unmeasuredPositions: unmeasured,
+    anyUnmeasured: atLeastOne(one, unmeasured),
+    meanMargin: m.mean,
+    sdMargin: m.sd,
+  };
+}
+
+/** Sampling adequacy of one measured parameter at one place on the seam, from its at-pitch readings. */
+export function adequacyOf(input: AdequacyInput): Adequacy {
+  const ordered = [...input.points].sort((a, b) => a.position - b.position || (a.readingId < b.readingId ? -1 : 1));
+  const values = ordered.map((p) => p.value);
+  const stats = meanAndSd(values);
+  const resolutions = ordered.map((p) => p.resolution).filter((r): r is number => r !== null);
+  const target =
+    input.target !== undefined
+      ? { value: input.target, basis: 'asked for' }
+      : resolutions.length
+        ? { value: Math.max(...resolutions), basis: 'instrument resolution' }
+        : { value: input.defaultResolution, basis: 'default resolution (instrument resolution not recorded)' };
+  const half = stats.n >= 2 ? confidenceHalfWidth(stats.sd, stats.n) : null;
+  const means = runningMeans(values);
+  const settle = stats.n ? settling(means, target.value) : { after: 0, settled: false };
+  const needed = stats.n >= 2 ? positionsForHalfWidth(stats.sd, target.value) : null;
+  const more = needed === null ? null : Math.max(0, needed - stats.n);
+  const risk = riskOf(input, ordered);
+  const u = input.unit === 'deg' ? '°' : ' mm';
+  const parts: string[] = [];
+  if (stats.n < 2) {
+    parts.push(`${input.label}: ${stats.n} at-pitch position; measure at least ${2 - stats.n} more to estimate the scatter`);
+  } else {
+    parts.push(
+      `${input.label}: ${stats.n} positions, mean ${fmt(stats.mean)}${u}, 95 % interval ±${fmt(half as number, 2)}${u}`,
+    );
+    if (more === null) parts.push(`the scatter is too large to bring the interval within ±${fmt(target.value)}${u} by measuring more`);
+    else if (more === 0) parts.push(`within ±${fmt(target.value)}${u}: enough positions`);
+    else parts.push(`measure about ${more} more position${more === 1 ? '' : 's'} to bring it within ±${fmt(target.value)}${u}`);
+    if (!settle.settled) parts.push('the running mean has not settled yet');
+  }
+  if ('onePosition' in risk) {
+    const level = `level ${risk.requiredLevel ?? 'required'}`;
+    parts.push(
+      risk.unmeasuredPositions > 0
+        ? `chance that one unmeasured position misses ${level}: ${pct(risk.onePosition)}; that at least one of the ${risk.unmeasuredPositions} unmeasured positions at the ${fmt(risk.pitchMm ?? 0)} mm pitch does: ${pct(risk.anyUnmeasured)} (positions assumed independent)`
+        : `every position at the pitch was measured; chance that another position would miss ${level}: ${pct(risk.onePosition)}`,
+    );
+  }
+  return {
+    label: input.label,
+    unit: input.unit,
+    count: stats.n,
+    mean: stats.mean,
+    sd: stats.n >= 2 ? stats.sd : null,
+    ci95: half === null ? null : { low: stats.mean - half, high: stats.mean + half, halfWidth: half },
+    target,
+    runningMean: series(
+      ordered.map((p) => p.position),
+      means,
+    ),
+    settled: settle.settled,
+    settledAfter: stats.n ? settle.after : null,
+    positionsNeeded: needed,
+    morePositions: more,
+    risk,
+    advice: `${parts.join('; ')}.`,
+  };
+}

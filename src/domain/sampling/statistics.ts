@@ -1,0 +1,107 @@
+import { studentTCdf, studentTQuantile } from './special.js';
+
+export interface MeanSd {
+  readonly n: number;
+  readonly mean: number;
+  /** Sample standard deviation (n − 1 in the denominator); NaN when n < 2. */
+  readonly sd: number;
+}
+
+// Welford's running algorithm (Technometrics 4, 1962): mean and sample standard deviation in one pass.
+export function meanAndSd(xs: readonly number[]): MeanSd {
+  let mean = 0;
+  let m2 = 0;
+  let n = 0;
+  for (const x of xs) {
+    n++;
+    const d = x - mean;
+    mean += d / n;
+    m2 += d * (x - mean);
+  }
+  return { n, mean: n ? mean : NaN, sd: n > 1 ? Math.sqrt(Math.max(0, m2 / (n - 1))) : NaN };
+}
+
+// Student (1908): half-width of the two-sided confidence interval of a mean, t_{(1+c)/2, n−1}·s/√n.
+export function confidenceHalfWidth(sd: number, n: number, confidence = 0.95): number {
+  if (n < 2) return Infinity;
+  return (studentTQuantile((1 + confidence) / 2, n - 1) * sd) / Math.sqrt(n);
+}
+
+export const MAX_POSITIONS = 100_000;
+
+/**
+ * The fewest positions whose 95 % interval of the mean is within ±target for the same scatter: the smallest n
+ * with t_{n−1}·s/√n ≤ target (the half-width falls as n grows). null when more than MAX_POSITIONS would be needed.
+ */
+export function positionsForHalfWidth(sd: number, target: number, confidence = 0.95): number | null {
+  if (!(target > 0) || !Number.isFinite(sd)) return null;
+  if (sd === 0) return 2;
+  const ok = (n: number): boolean => confidenceHalfWidth(sd, n, confidence) <= target;
+  // The half-width falls as n grows: bracket the smallest n that meets the target, then bisect. The normal
+  // quantile's estimate (z·s/target)² is a lower bound, since t > z.
+  const z = studentTQuantile((1 + confidence) / 2, 1e9);
+  let lo = Math.max(1, Math.floor(((z * sd) / target) ** 2) - 1);
+  if (lo >= MAX_POSITIONS) return null;
+  let hi = Math.max(lo + 1, 2);
+  while (!ok(hi)) {
+    lo = hi;
+    hi *= 2;
+    if (hi > 2 * MAX_POSITIONS) return null;
+  }
+  while (hi - lo > 1) {
+    const mid = Math.floor((lo + hi) / 2);
+    if (ok(mid)) hi = mid;
+    else lo = mid;
+  }
+  return hi <= MAX_POSITIONS ? Math.max(2, hi) : null;
+}
+
+/** The mean after each position is added, in the order given. */
+export function runningMeans(xs: readonly number[]): number[] {
+  const out: number[] = [];
+  let sum = 0;
+  xs.forEach((x, i) => {
+    sum += x;
+    out.push(sum / (i + 1));
+  });
+  return out;
+}
+
+/**
+ * The number of positions after which the running mean stayed within ±band of the final mean for good; the
+ * mean has settled when that happened at least max(3, ⌈n/4⌉) positions before the end.
+ */
+export function settling(means: readonly number[], band: number): { readonly after: number; readonly settled: boolean } {
+  const n = means.length;
+  const final = means[n - 1] ?? NaN;
+  let after = n;
+  for (let i = n - 1; i >= 0; i--) {
+    if (Math.abs((means[i] as number) - final) <= band) after = i + 1;
+    else break;
+  }
+  return { after, settled: n >= 4 && n - after >= Math.max(3, Math.ceil(n / 4)) };
+}
+
+// Predictive distribution of one new value from a normal sample (Student t, ν = n − 1, scale s·√(1 + 1/n)): P(X_new < x).
+export function predictiveBelow(x: number, mean: number, sd: number, n: number): number {
+  if (n < 2 || !Number.isFinite(sd)) return NaN;
+  if (sd === 0) return x > mean ? 1 : 0;
+  return studentTCdf((x - mean) / (sd * Math.sqrt(1 + 1 / n)), n - 1);
+}
+
+// Independent positions (stated assumption): P(at least one of m fails) = 1 − (1 − p)^m.
+export function atLeastOne(p: number, m: number): number {
+  if (m <= 0) return 0;
+  return -Math.expm1(m * Math.log1p(-Math.min(p, 1)));
+}
+
+/** The regular spacing of the positions: the median gap between distinct sorted positions. */
+export function pitchOf(positions: readonly number[]): number | null {
+  const s = [...new Set(positions)].sort((a, b) => a - b);
+  const gaps: number[] = [];
+  for (let i = 1; i < s.length; i++) gaps.push((s[i] as number) - (s[i - 1] as number));
+  if (!gaps.length) return null;
+  gaps.sort((a, b) => a - b);
+  const mid = gaps.length >> 1;
+  return gaps.length % 2 ? (gaps[mid] as number) : ((gaps[mid - 1] as number) + (gaps[mid] as number)) / 2;
+}

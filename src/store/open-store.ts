@@ -1,0 +1,61 @@
+// Opens the store: the one object through which screens and the sync code reach IndexedDB.
+import type { Store } from './api.js';
+import { exportBackup } from './backup-export.js';
+import { importBackup } from './backup-import.js';
+import { Connection } from './connection.js';
+import type { StoreContext } from './context.js';
+import { loadDemo, removeDemo } from './demo-namespace.js';
+import { uuidv7 } from './ids.js';
+import { appendReading } from './reading-writes.js';
+import * as reads from './reads.js';
+import { DEFAULT_DB_NAME } from './schema.js';
+import { answerChecklist, saveSeam, setSummary, startRound } from './seam-writes.js';
+
+export interface OpenStoreOptions {
+  /** Database name; tests give each case its own. */
+  name?: string;
+  /** Another tab holds an older version open, so this one waits: ask the user to close or reload that tab. */
+  onBlocked?(): void;
+  /** Another tab is upgrading the database: this store has closed its connection; the page should reload. */
+  onBlocking?(): void;
+  /** The browser closed the connection abnormally; the next call reopens it. */
+  onTerminated?(): void;
+  /** The clock for record times (ISO 8601). Times are informative; order comes from sequence numbers. */
+  now?: () => string;
+  /** The id source for outbox records; UUIDv7 by default. */
+  newId?: () => string;
+}
+
+/** Opens (creating or upgrading as needed) the database and resolves once it is ready to use. */
+export async function openStore(options: OpenStoreOptions = {}): Promise<Store> {
+  const now = options.now ?? (() => new Date().toISOString());
+  const conn = new Connection({
+    name: options.name ?? DEFAULT_DB_NAME,
+    now,
+    ...(options.onBlocked ? { onBlocked: () => options.onBlocked?.() } : {}),
+    ...(options.onBlocking ? { onBlocking: () => options.onBlocking?.() } : {}),
+    ...(options.onTerminated ? { onTerminated: () => options.onTerminated?.() } : {}),
+  });
+  const ctx: StoreContext = { conn, now, newId: options.newId ?? (() => uuidv7()) };
+  await conn.open();
+  return {
+    health: () => conn.health(),
+    listSeams: () => reads.listSeams(ctx),
+    getSeam: (id) => reads.getSeam(ctx, id),
+    saveSeam: (seam, namespace) => saveSeam(ctx, seam, namespace),
+    setSummary: (seamId, summary) => setSummary(ctx, seamId, summary),
+    listRounds: (seamId) => reads.listRounds(ctx, seamId),
+    startRound: (seamId, kind, examiner) => startRound(ctx, seamId, kind, examiner),
+    answerChecklist: (seamId, round, item, answer) => answerChecklist(ctx, seamId, round, item, answer),
+    listReadings: (seamId) => reads.listReadings(ctx, seamId),
+    appendReading: (seamId, reading) => appendReading(ctx, seamId, reading),
+    seamFile: (seamId) => reads.seamFile(ctx, seamId),
+    outboxCount: () => reads.outboxCount(ctx),
+    outboxEntries: (limit) => reads.outboxEntries(ctx, limit),
+    exportBackup: () => exportBackup(ctx),
+    importBackup: (data) => importBackup(ctx, data),
+    loadDemo: () => loadDemo(ctx),
+    removeDemo: () => removeDemo(ctx),
+    close: () => conn.close(),
+  };
+}

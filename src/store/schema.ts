@@ -1,0 +1,101 @@
+// The shape of the IndexedDB database and the steps that bring any older shape up to it. A database made by an
+// older app version is upgraded in place: migrations only add and back-fill, they never drop data.
+import type { DBSchema, IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
+import type { Namespace, OutboxEntry, ReadingRecord, RoundRecord, SeamRecord } from './api.js';
+
+export const DEFAULT_DB_NAME = 'beadbook';
+
+/** Small values kept beside the records: when this database was made, and the last local sequence number. */
+export type MetaRecord =
+  | { readonly key: 'created'; readonly createdAt: string }
+  | { readonly key: 'localSeq'; readonly value: number };
+
+export interface BeadbookDB extends DBSchema {
+  meta: { key: MetaRecord['key']; value: MetaRecord };
+  seams: { key: string; value: SeamRecord; indexes: { byNamespace: Namespace } };
+  /** Keyed by [seamId, number], so one seam's rounds are one key range, in order. */
+  rounds: { key: [string, number]; value: RoundRecord };
+  /** Keyed by the reading id: a second reading with the same id cannot be stored. */
+  readings: {
+    key: string;
+    value: ReadingRecord;
+    indexes: {
+      bySeam: string;
+      /** One seam's readings in order of entry (version 2). */
+      bySeamSeq: [string, number];
+      /** Lets the demo be removed without touching live readings (version 2). */
+      byNamespace: Namespace;
+      /** Finds the correction or withdrawal of a reading, so a reading is superseded at most once (version 2). */
+      bySupersedes: string;
+    };
+  };
+  /** What waits for the server, in the order it was made on this device. */
+  outbox: { key: number; value: OutboxEntry; indexes: { byRecord: string } };
+}
+
+export type UpgradeTransaction = IDBPTransaction<BeadbookDB, StoreNames<BeadbookDB>[], 'versionchange'>;
+type Migration = (db: IDBPDatabase<BeadbookDB>, tx: UpgradeTransaction) => void | Promise<void>;
+
+/** Version 1: the first shape. Readings carried no local sequence number and had only the per-seam index. */
+function version1(db: IDBPDatabase<BeadbookDB>): void {
+  db.createObjectStore('meta', { keyPath: 'key' });
+  db.createObjectStore('seams', { keyPath: 'id' }).createIndex('byNamespace', 'namespace');
+  db.createObjectStore('rounds', { keyPath: ['seamId', 'number'] });
+  db.createObjectStore('readings', { keyPath: 'reading.id' }).createIndex('bySeam', 'seamId');
+  db.createObjectStore('outbox', { keyPath: 'seq', autoIncrement: true }).createIndex(
+    'byRecord',
+    'recordId',
+    {
+      unique: true,
+    },
+  );
+}
+
+/** A reading as version 1 stored it. */
+type Version1Reading = Omit<ReadingRecord, 'localSeq'>;
+
+/**
+ * Version 2: readings get `localSeq`, the device-local order of entry, and indexes by seam and order, by
+ * namespace and by superseded reading. Version 1 kept no order of entry, so the back-fill uses the best evidence
+ * left: readings already acknowledged (gone from the outbox) came before those still waiting; the waiting ones
+ * keep their outbox order; the rest go by recorded time, then id.
+ */
+async function version2(_db: IDBPDatabase<BeadbookDB>, tx: UpgradeTransaction): Promise<void> {
+  const readings = tx.objectStore('readings');
+  readings.createIndex('bySeamSeq', ['seamId', 'localSeq']);
+  readings.createIndex('byNamespace', 'namespace');
+  readings.createIndex('bySupersedes', 'reading.supersedes');
+  const old = (await readings.getAll()) as Version1Reading[];
+  const waiting = new Map<string, number>();
+  for (const entry of await tx.objectStore('outbox').getAll()) {
+    if (entry.kind === 'reading') waiting.set(entry.recordId, entry.seq);
+  }
+  const rank = (r: Version1Reading) => waiting.get(r.reading.id) ?? -1;
+  old.sort(
+    (a, b) =>
+      rank(a) - rank(b) ||
+      a.reading.recordedAt.localeCompare(b.reading.recordedAt) ||
+      a.reading.id.localeCompare(b.reading.id),
+  );
+  await Promise.all(old.map((r, i) => readings.put({ ...r, localSeq: i + 1 })));
+  await tx.objectStore('meta').put({ key: 'localSeq', value: old.length });
+}
+
+/** MIGRATIONS[n - 1] brings a database from version n - 1 to version n. Append only; never edit a shipped step. */
+export const MIGRATIONS: readonly Migration[] = [version1, version2];
+export const DB_VERSION = MIGRATIONS.length;
+
+/**
+ * Runs the steps from oldVersion to the current version inside the upgrade transaction. A step that makes no
+ * requests runs synchronously, so schema changes happen while the upgrade event is still being handled.
+ */
+export async function migrate(
+  db: IDBPDatabase<BeadbookDB>,
+  tx: UpgradeTransaction,
+  oldVersion: number,
+): Promise<void> {
+  for (const step of MIGRATIONS.slice(oldVersion)) {
+    const pending = step(db, tx);
+    if (pending) await pending;
+  }
+}
