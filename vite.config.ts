@@ -11,6 +11,10 @@ const pkg = JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 
 // The version shown in the app. A deploy (or a test) can stamp its own, e.g. BEADBOOK_VERSION=0.1.0+3f2a.
 const version = process.env['BEADBOOK_VERSION'] ?? pkg.version;
 
+const certFile = process.env['BEADBOOK_TLS_CERT'];
+const keyFile = process.env['BEADBOOK_TLS_KEY'];
+const tls = certFile && keyFile ? { cert: readFileSync(certFile), key: readFileSync(keyFile) } : undefined;
+
 export default defineConfig({
   define: { __BEADBOOK_VERSION__: JSON.stringify(version) },
   plugins: [
@@ -38,7 +42,8 @@ export default defineConfig({
   build: { outDir: 'dist/app', emptyOutDir: true, target: 'es2022' },
   worker: { format: 'es' },
   // Applies to every file preview serves, sw.js included (checked by test/e2e/build-output.browser.test.ts).
-  preview: { headers: { 'Cache-Control': 'no-cache' } },
+  // Tablets need https for the service worker and the camera: give a certificate and key to serve over TLS.
+  preview: { headers: { 'Cache-Control': 'no-cache' }, ...(tls ? { https: tls } : {}) },
   test: {
     environment: 'node',
     pool: 'forks',

@@ -34,11 +34,14 @@ describe.each(EXAMPLES)('beadbook grade %s', (example) => {
     const out = JSON.parse(r.stdout) as SeamGrade & { assessment: SeamAssessment };
     const parsed = parseSeamFile(JSON.parse(readFileSync(join(ROOT, example), 'utf8')));
     if (!parsed.ok) throw new Error('example does not validate');
-    expect(out.assessment).toEqual(JSON.parse(JSON.stringify(assessSeam(parsed.value, gradeSeam(parsed.value)))));
+    expect(out.assessment).toEqual(
+      JSON.parse(JSON.stringify(assessSeam(parsed.value, gradeSeam(parsed.value)))),
+    );
   });
 
   it('--json shows every part: km, toe ranking with crack site, FAT flag, life, effective notch, sensitivity, sampling', () => {
-    const a = (JSON.parse(run(['grade', '--json', example]).stdout) as { assessment: SeamAssessment }).assessment;
+    const a = (JSON.parse(run(['grade', '--json', example]).stdout) as { assessment: SeamAssessment })
+      .assessment;
     expect(a.misalignment.kmCalc).toBeGreaterThanOrEqual(1);
     expect(a.misalignment.kmEff).toBeGreaterThanOrEqual(1);
     expect(a.toes.toes.length).toBeGreaterThan(1);
@@ -67,7 +70,9 @@ describe.each(EXAMPLES)('beadbook grade %s', (example) => {
 
 describe('the deck-splice example (one-sided butt weld, plates 10/12 mm, EXC2)', () => {
   it('earns IIW 216 (one side, no backing, root checked), and the crack site is a root-side toe', () => {
-    const a = (JSON.parse(run(['grade', '--json', EXAMPLES[0] as string]).stdout) as { assessment: SeamAssessment }).assessment;
+    const a = (
+      JSON.parse(run(['grade', '--json', EXAMPLES[0] as string]).stdout) as { assessment: SeamAssessment }
+    ).assessment;
     expect(a.fatigue.earned.details).toEqual(['216']);
     expect(a.toes.crackSite?.toe.side).toBe('root');
     expect(a.toes.note).toContain('puts the crack at the root');

@@ -47,14 +47,18 @@ function summarise(errors: readonly number[]): Errors {
   const abs = errors.map(Math.abs).sort((a, b) => a - b);
   const signed = [...errors].sort((a, b) => a - b);
   const mid = (xs: number[]): number =>
-    xs.length % 2 ? (xs[xs.length >> 1] as number) : ((xs[xs.length / 2 - 1] as number) + (xs[xs.length / 2] as number)) / 2;
+    xs.length % 2
+      ? (xs[xs.length >> 1] as number)
+      : ((xs[xs.length / 2 - 1] as number) + (xs[xs.length / 2] as number)) / 2;
   return { n: abs.length, median: mid(abs), worst: abs[abs.length - 1] ?? NaN, medianSigned: mid(signed) };
 }
 
 const pct = (x: number): string => `${(100 * x).toFixed(2)} %`;
 
 function report(what: string, e: Errors): void {
-  console.log(`${what}: ${e.n} cases, median |error| ${pct(e.median)}, worst |error| ${pct(e.worst)}, median signed ${pct(e.medianSigned)}`);
+  console.log(
+    `${what}: ${e.n} cases, median |error| ${pct(e.median)}, worst |error| ${pct(e.worst)}, median signed ${pct(e.medianSigned)}`,
+  );
 }
 
 describe('butt joints in bending (butt-bending-fe.csv)', () => {
@@ -78,7 +82,12 @@ describe('butt joints in bending (butt-bending-fe.csv)', () => {
     needData(ctx);
     const errors: number[] = [];
     for (const c of cases()) {
-      const [t, h, rho, flank] = [c.t_mm, c.h_mm, c.rho_mm, c.flank_deg] as number[] as [number, number, number, number];
+      const [t, h, rho, flank] = [c.t_mm, c.h_mm, c.rho_mm, c.flank_deg] as number[] as [
+        number,
+        number,
+        number,
+        number,
+      ];
       if (kiyakOutside(flank, h, t, rho).length) continue;
       errors.push(kiyakButtBending(flank, h, t, rho) / (c.kt_bending_fe as number) - 1);
     }
@@ -97,12 +106,21 @@ describe('cruciform joints in bending (cruciform-bending-fe.csv)', () => {
       const ratio = t / (c.rho_mm as number);
       const aOverT = (c.a_mm as number) / t;
       if (anthesCruciformOutside(ratio, flank, aOverT, 0).length) return [];
-      return [{ convexity: c.convexity_mm as number, error: anthesCruciformBending(ratio, flank, aOverT, 0) / (c.kt_bending_fe as number) - 1 }];
+      return [
+        {
+          convexity: c.convexity_mm as number,
+          error: anthesCruciformBending(ratio, flank, aOverT, 0) / (c.kt_bending_fe as number) - 1,
+        },
+      ];
     });
 
   it('Anthes (1993), s = 0, agrees within ±3 % on convex faces inside its validity', (ctx) => {
     needData(ctx);
-    const e = summarise(inRange().filter((c) => c.convexity >= 0.05).map((c) => c.error));
+    const e = summarise(
+      inRange()
+        .filter((c) => c.convexity >= 0.05)
+        .map((c) => c.error),
+    );
     report('Anthes cruciform bending vs FE, convex faces', e);
     expect(e.n).toBeGreaterThan(200);
     expect(e.worst).toBeLessThanOrEqual(0.03);
@@ -110,7 +128,11 @@ describe('cruciform joints in bending (cruciform-bending-fe.csv)', () => {
 
   it('on flat or concave faces it reads high, about +10 % (notch reference §4): the engine flags those faces', (ctx) => {
     needData(ctx);
-    const e = summarise(inRange().filter((c) => c.convexity < 0.05).map((c) => c.error));
+    const e = summarise(
+      inRange()
+        .filter((c) => c.convexity < 0.05)
+        .map((c) => c.error),
+    );
     report('Anthes cruciform bending vs FE, flat or concave faces', e);
     expect(e.n).toBeGreaterThan(100);
     expect(e.medianSigned).toBeGreaterThan(0.05);

@@ -50,7 +50,8 @@ export function jointBendingRatio(b: BeamColumn, intervals = 8000): { plate1: nu
   const k2 = P / EI;
   const m = n - 1;
   const xs = (i: number): number => i * h;
-  const w0At = (i: number): number => (i === n1 ? (b.w0(xs(i), 1) + b.w0(xs(i), 2)) / 2 : b.w0(xs(i), i < n1 ? 1 : 2));
+  const w0At = (i: number): number =>
+    i === n1 ? (b.w0(xs(i), 1) + b.w0(xs(i), 2)) / 2 : b.w0(xs(i), i < n1 ? 1 : 2);
   const lower = 1 / (h * h);
   const diag = -2 / (h * h) - k2;
   const rhsP = new Float64Array(m);

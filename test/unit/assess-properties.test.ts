@@ -67,58 +67,90 @@ const kmCalc = (seam: Seam, e: number, alpha: number): number => {
 describe('km (misalignment reference §2)', () => {
   it('km ≥ 1 under tension for every formula, and non-decreasing in |e| and |α|', () => {
     fc.assert(
-      fc.property(pair(num(0, 10)), num(2, 40), num(2, 40), num(10, 1000), num(10, 1000), num(0.1, 400), (e, t, T, l1, l2, sigma) => {
-        const [e1, e2] = e;
-        const flat = (x: number) => kmAxialFlat(x, t, l1, l1, l2);
-        const stepKm = (x: number) => kmAxialThicknessStep(x, t, T);
-        expect(flat(e1)).toBeGreaterThanOrEqual(1);
-        expect(flat(e1)).toBeLessThanOrEqual(flat(e2));
-        expect(stepKm(e1)).toBeLessThanOrEqual(stepKm(e2));
-        for (const ends of ['clamped', 'pinned'] as const) {
-          const f = straighteningFactor(straighteningBeta(Math.min(l1, l2), t, sigma, E), ends, false);
-          const ang = (a: number) => kmAngular(a * RAD, t, l1, l2, ends, f);
-          expect(ang(e1)).toBeGreaterThanOrEqual(1);
-          expect(ang(e1)).toBeLessThanOrEqual(ang(e2));
-        }
-      }),
+      fc.property(
+        pair(num(0, 10)),
+        num(2, 40),
+        num(2, 40),
+        num(10, 1000),
+        num(10, 1000),
+        num(0.1, 400),
+        (e, t, T, l1, l2, sigma) => {
+          const [e1, e2] = e;
+          const flat = (x: number) => kmAxialFlat(x, t, l1, l1, l2);
+          const stepKm = (x: number) => kmAxialThicknessStep(x, t, T);
+          expect(flat(e1)).toBeGreaterThanOrEqual(1);
+          expect(flat(e1)).toBeLessThanOrEqual(flat(e2));
+          expect(stepKm(e1)).toBeLessThanOrEqual(stepKm(e2));
+          for (const ends of ['clamped', 'pinned'] as const) {
+            const f = straighteningFactor(straighteningBeta(Math.min(l1, l2), t, sigma, E), ends, false);
+            const ang = (a: number) => kmAngular(a * RAD, t, l1, l2, ends, f);
+            expect(ang(e1)).toBeGreaterThanOrEqual(1);
+            expect(ang(e1)).toBeLessThanOrEqual(ang(e2));
+          }
+        },
+      ),
       RUNS,
     );
   });
 
   it('the seam’s km,calc is ≥ 1 and non-decreasing in |e| and |α| whatever the joint, thicknesses, arms and restraint', () => {
     fc.assert(
-      fc.property(seamArb, pair(num(0, 6)), pair(num(0, 5)), fc.boolean(), fc.boolean(), (seam, e, a, eNeg, aNeg) => {
-        const se = eNeg ? -1 : 1;
-        const sa = aNeg ? -1 : 1;
-        const k11 = kmCalc(seam, se * e[0], sa * a[0]);
-        expect(k11).toBeGreaterThanOrEqual(1);
-        expect(k11).toBeLessThanOrEqual(kmCalc(seam, se * e[1], sa * a[0]) + 1e-12);
-        expect(k11).toBeLessThanOrEqual(kmCalc(seam, se * e[0], sa * a[1]) + 1e-12);
-      }),
+      fc.property(
+        seamArb,
+        pair(num(0, 6)),
+        pair(num(0, 5)),
+        fc.boolean(),
+        fc.boolean(),
+        (seam, e, a, eNeg, aNeg) => {
+          const se = eNeg ? -1 : 1;
+          const sa = aNeg ? -1 : 1;
+          const k11 = kmCalc(seam, se * e[0], sa * a[0]);
+          expect(k11).toBeGreaterThanOrEqual(1);
+          expect(k11).toBeLessThanOrEqual(kmCalc(seam, se * e[1], sa * a[0]) + 1e-12);
+          expect(k11).toBeLessThanOrEqual(kmCalc(seam, se * e[0], sa * a[1]) + 1e-12);
+        },
+      ),
       RUNS,
     );
   });
 
   it('straightening never raises km in tension', () => {
     fc.assert(
-      fc.property(num(0, 10), num(2, 40), num(10, 3000), num(10, 3000), num(1e-3, 600), (a, t, l1, l2, sigma) => {
-        for (const ends of ['clamped', 'pinned'] as const) {
-          const f = straighteningFactor(straighteningBeta(Math.min(l1, l2), t, sigma, E), ends, false);
-          expect(f).toBeLessThanOrEqual(1);
-          expect(kmAngular(a * RAD, t, l1, l2, ends, f)).toBeLessThanOrEqual(kmAngular(a * RAD, t, l1, l2, ends));
-        }
-      }),
+      fc.property(
+        num(0, 10),
+        num(2, 40),
+        num(10, 3000),
+        num(10, 3000),
+        num(1e-3, 600),
+        (a, t, l1, l2, sigma) => {
+          for (const ends of ['clamped', 'pinned'] as const) {
+            const f = straighteningFactor(straighteningBeta(Math.min(l1, l2), t, sigma, E), ends, false);
+            expect(f).toBeLessThanOrEqual(1);
+            expect(kmAngular(a * RAD, t, l1, l2, ends, f)).toBeLessThanOrEqual(
+              kmAngular(a * RAD, t, l1, l2, ends),
+            );
+          }
+        },
+      ),
       RUNS,
     );
   });
 });
 
 /** Each formula's own validity (notch reference §1–3), to generate inputs inside it. */
-const inside: Record<NotchFormulaId, (g: { t: number; flank: number; rho: number; h: number; a: number }) => boolean> = {
+const inside: Record<
+  NotchFormulaId,
+  (g: { t: number; flank: number; rho: number; h: number; a: number }) => boolean
+> = {
   anthesButtBending: (g) => g.t / g.rho <= 200 && g.flank >= 0 && g.flank <= 90,
   kiyakButtBending: (g) => g.flank >= 10 && g.flank <= 60 && g.rho / g.t >= 0.01 && g.rho / g.t <= 0.4,
   anthesCruciformBending: (g) =>
-    g.flank >= 30 && g.flank <= 60 && g.t / g.rho >= 15 && g.t / g.rho <= 100 && g.a / g.t >= 0.3 && g.a / g.t <= 1,
+    g.flank >= 30 &&
+    g.flank <= 60 &&
+    g.t / g.rho >= 15 &&
+    g.t / g.rho <= 100 &&
+    g.a / g.t >= 0.3 &&
+    g.a / g.t <= 1,
   lawrenceTension: (g) => g.flank >= 0 && g.flank < 89.999,
 };
 
@@ -132,7 +164,10 @@ describe('Kt inside each formula’s validity (notch reference)', () => {
     aOverT: num(0.3, 1),
   });
   const values = (joint: 'butt' | 'fillet', t: number, flank: number, rho: number, h: number, a: number) => {
-    const n = toeNotchFactors(joint, joint === 'butt' ? { t, flankDeg: flank, rho, h } : { t, flankDeg: flank, rho, a });
+    const n = toeNotchFactors(
+      joint,
+      joint === 'butt' ? { t, flankDeg: flank, rho, h } : { t, flankDeg: flank, rho, a },
+    );
     return new Map([...n.bending, ...n.tension].map((f) => [f.formula, f.value] as const));
   };
 
@@ -177,12 +212,16 @@ describe('FAT equivalent and life', () => {
   it('FAT equivalent is non-increasing in km', () => {
     const setup = setupOf(buttSeam({ fatigue: { loaded: true } }));
     fc.assert(
-      fc.property(pair(num(1, 4)), fc.constantFrom('212' as const, '216' as const, '414' as const), (km, id) => {
-        const covered = KM_COVERED.buttShopFlat.value;
-        const lo = detailUse(setup, id, undefined, kmEffective(km[0], covered)).fatEquivalent as number;
-        const hi = detailUse(setup, id, undefined, kmEffective(km[1], covered)).fatEquivalent as number;
-        expect(hi).toBeLessThanOrEqual(lo);
-      }),
+      fc.property(
+        pair(num(1, 4)),
+        fc.constantFrom('212' as const, '216' as const, '414' as const),
+        (km, id) => {
+          const covered = KM_COVERED.buttShopFlat.value;
+          const lo = detailUse(setup, id, undefined, kmEffective(km[0], covered)).fatEquivalent as number;
+          const hi = detailUse(setup, id, undefined, kmEffective(km[1], covered)).fatEquivalent as number;
+          expect(hi).toBeLessThanOrEqual(lo);
+        },
+      ),
       RUNS,
     );
   });
@@ -200,9 +239,14 @@ describe('FAT equivalent and life', () => {
 describe('sampling', () => {
   it('the 95 % interval narrows as positions are added with the same scatter', () => {
     fc.assert(
-      fc.property(num(1e-3, 50), fc.integer({ min: 2, max: 500 }), fc.integer({ min: 1, max: 500 }), (sd, n, k) => {
-        expect(confidenceHalfWidth(sd, n + k)).toBeLessThan(confidenceHalfWidth(sd, n));
-      }),
+      fc.property(
+        num(1e-3, 50),
+        fc.integer({ min: 2, max: 500 }),
+        fc.integer({ min: 1, max: 500 }),
+        (sd, n, k) => {
+          expect(confidenceHalfWidth(sd, n + k)).toBeLessThan(confidenceHalfWidth(sd, n));
+        },
+      ),
       RUNS,
     );
   });
@@ -212,8 +256,21 @@ describe('sampling', () => {
       fc.property(fc.array(num(100, 180), { minLength: 2, maxLength: 30 }), (xs) => {
         fc.pre(Math.max(...xs) - Math.min(...xs) > 1e-6);
         const points = (vs: number[]) =>
-          vs.map((value, i) => ({ readingId: `r${i}`, position: 10 * i, value, margin: null, resolution: 1 }));
-        const args = { label: 'x', unit: 'deg' as const, seamLength: 1e5, circumferential: false, defaultResolution: 1, requiredLevel: null };
+          vs.map((value, i) => ({
+            readingId: `r${i}`,
+            position: 10 * i,
+            value,
+            margin: null,
+            resolution: 1,
+          }));
+        const args = {
+          label: 'x',
+          unit: 'deg' as const,
+          seamLength: 1e5,
+          circumferential: false,
+          defaultResolution: 1,
+          requiredLevel: null,
+        };
         const once = adequacyOf({ ...args, points: points(xs) });
         const twice = adequacyOf({ ...args, points: points([...xs, ...xs]) });
         expect(twice.ci95?.halfWidth).toBeLessThan(once.ci95?.halfWidth as number);
@@ -247,11 +304,15 @@ describe('toe ranking', () => {
               [1, 'root'],
               [2, 'root'],
             ] as const
-          ).map(([plate, side], i) =>
-            reading({ toeAngle: geo[i]!.angle, toeRadius: geo[i]!.radius }, { toe: { plate, side } }),
-          );
+          ).map(([plate, side], i) => {
+            const g = geo[i] as { angle: number; radius: number };
+            return reading({ toeAngle: g.angle, toeRadius: g.radius }, { toe: { plate, side } });
+          });
           const a = negative ? -alpha : alpha;
-          const file = seamFile(seam, [...toes, reading({ angularMisalignment: a, linearMisalignment: eOverT * t })]);
+          const file = seamFile(seam, [
+            ...toes,
+            reading({ angularMisalignment: a, linearMisalignment: eOverT * t }),
+          ]);
           const ranked = assessSeam(file, gradeSeam(file), { sensitivity: false }).toes.toes;
           const tensionSide = a > 0 ? 'root' : 'face';
           expect(ranked.slice(0, 2).map((x) => x.toe.side)).toEqual([tensionSide, tensionSide]);

@@ -94,7 +94,8 @@ describe('fillet joints', () => {
       reading({ toeAngle: 135, toeRadius: 1 }, { toe: { plate: 1, side: 'face' } }),
     ]);
     expect(a.misalignment.linear).toEqual({
-      notAssessed: 'the main plate of a T joint is continuous: linear misalignment puts no secondary bending in it',
+      notAssessed:
+        'the main plate of a T joint is continuous: linear misalignment puts no secondary bending in it',
     });
     expect(surface(a, 1, 'face')).toBeCloseTo(kmAngular(RAD, 10, 200, 200, 'pinned') - 1, 12);
     expect(a.toes.toes[0]?.secondaryBending).toBe('tension');

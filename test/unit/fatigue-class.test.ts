@@ -75,7 +75,9 @@ describe('catalogue (reference §3.2 table, recalled; EN 1993-1-9 ladder 112/90/
 });
 
 describe('the class the measured seam earns (reference §3.2 conditions; EN 1993-1-9 convexity ≤ 10 % for cat. 90)', () => {
-  const twoSided = buttSeam({ joint: { type: 'butt', preparation: 'doubleV', sides: 'two', setting: 'shopFlat' } });
+  const twoSided = buttSeam({
+    joint: { type: 'butt', preparation: 'doubleV', sides: 'two', setting: 'shopFlat' },
+  });
   it('shop, flat, every toe angle ≥ 150°, reinforcement ≤ 10 % of its width → 212', () => {
     const e = earnedDetails(twoSided, {
       minToeAngle: { value: 150, where: 'x' },
@@ -93,7 +95,10 @@ describe('the class the measured seam earns (reference §3.2 conditions; EN 1993
   });
   it('made on site → 213 even with good geometry', () => {
     const site = { ...twoSided, joint: { ...twoSided.joint, setting: 'site' as const } };
-    const e = earnedDetails(site, { minToeAngle: { value: 170, where: 'x' }, maxReinforcementRatio: { value: 0.02, where: 'y' } });
+    const e = earnedDetails(site, {
+      minToeAngle: { value: 170, where: 'x' },
+      maxReinforcementRatio: { value: 0.02, where: 'y' },
+    });
     expect(e.details).toEqual(['213']);
   });
   it('aluminium 213 needs toe angles ≥ 130°: below that no class is earned', () => {
@@ -109,22 +114,33 @@ describe('the class the measured seam earns (reference §3.2 conditions; EN 1993
     const e = earnedDetails(one, {});
     expect(e.details).toEqual(['216']);
     expect(e.assumptions.join(' ')).toContain('NDT of the root not recorded');
-    expect(earnedDetails({ ...one, fatigue: { loaded: true, ndt: false } }, {}).details).toEqual(['216-noNDT']);
-    expect(earnedDetails({ ...one, fatigue: { loaded: true, backing: 'permanent' } }, {}).details).toEqual(['215']);
-    expect(earnedDetails({ ...one, fatigue: { loaded: true, backing: 'temporary' } }, {}).details).toEqual(['214']);
+    expect(earnedDetails({ ...one, fatigue: { loaded: true, ndt: false } }, {}).details).toEqual([
+      '216-noNDT',
+    ]);
+    expect(earnedDetails({ ...one, fatigue: { loaded: true, backing: 'permanent' } }, {}).details).toEqual([
+      '215',
+    ]);
+    expect(earnedDetails({ ...one, fatigue: { loaded: true, backing: 'temporary' } }, {}).details).toEqual([
+      '214',
+    ]);
   });
   it('fillet joints: non-load-carrying → 511 (thicker attachment 511-thick, toe ground 511-ground); load-carrying → 413 and 414', () => {
     const t = filletSeam({ fatigue: { loaded: true, loadCarrying: false } });
     expect(earnedDetails(t, {}).details).toEqual(['511']);
     expect(earnedDetails({ ...t, plate2: { thickness: 12 } }, {}).details).toEqual(['511-thick']);
     expect(earnedDetails({ ...t, surface: 'toeGround' }, {}).details).toEqual(['511-ground']);
-    expect(earnedDetails(filletSeam({ fatigue: { loaded: true, loadCarrying: true } }), {}).details).toEqual(['413', '414']);
+    expect(earnedDetails(filletSeam({ fatigue: { loaded: true, loadCarrying: true } }), {}).details).toEqual([
+      '413',
+      '414',
+    ]);
     const unknown = earnedDetails(filletSeam(), {});
     expect(unknown.details).toEqual(['413', '414']);
     expect(unknown.assumptions.join(' ')).toContain('taken as load-carrying');
   });
   it('lap joints earn nothing from the catalogue', () => {
-    expect(earnedDetails(filletSeam({ joint: { type: 'lap', sides: 'one', setting: 'site' } }), {}).details).toEqual([]);
+    expect(
+      earnedDetails(filletSeam({ joint: { type: 'lap', sides: 'one', setting: 'site' } }), {}).details,
+    ).toEqual([]);
   });
 });
 
@@ -161,7 +177,10 @@ describe('FAT flag and life through assessSeam', () => {
   });
 
   it('e = 2 mm: km 1.6, km,eff 1.6/1.3, FAT equivalent 80·1.3/1.6 = 65, below 80 (derived)', () => {
-    const file = seamFile(seam({ loaded: true, requiredFat: 80, designStressRange: 50, cycles: 1e6 }), [e1, e2]);
+    const file = seamFile(seam({ loaded: true, requiredFat: 80, designStressRange: 50, cycles: 1e6 }), [
+      e1,
+      e2,
+    ]);
     const a = assessSeam(file, gradeSeam(file));
     expect(a.misalignment.kmCalc).toBeCloseTo(1.6, 10);
     expect(a.fatigue.fatEquivalent).toBeCloseTo(65, 10);
@@ -174,7 +193,9 @@ describe('FAT flag and life through assessSeam', () => {
   });
 
   it('not assessable, naming what is missing: no required FAT, and no misalignment reading', () => {
-    const file = seamFile(seam({ loaded: true }), [reading({ toeAngle: 150 }, { toe: { plate: 1, side: 'face' } })]);
+    const file = seamFile(seam({ loaded: true }), [
+      reading({ toeAngle: 150 }, { toe: { plate: 1, side: 'face' } }),
+    ]);
     const a = assessSeam(file, gradeSeam(file));
     expect(a.fatigue.flag).toBe('notAssessable');
     expect(a.fatigue.missing.join(' | ')).toContain('fatigue.requiredFat');
@@ -183,7 +204,10 @@ describe('FAT flag and life through assessSeam', () => {
   });
 
   it('the drawing’s catalogue detail is the required FAT when none is given, and a better class than earned is pointed out', () => {
-    const file = seamFile(seam({ loaded: true, detailClass: 'IIW 212' }), [e1, reading({ toeAngle: 140 }, { toe: { plate: 1, side: 'face' } })]);
+    const file = seamFile(seam({ loaded: true, detailClass: 'IIW 212' }), [
+      e1,
+      reading({ toeAngle: 140 }, { toe: { plate: 1, side: 'face' } }),
+    ]);
     const a = assessSeam(file, gradeSeam(file));
     expect(a.fatigue.requiredFat).toEqual({ value: 90, basis: "the drawing's detail class 212" });
     expect(a.fatigue.designDetail?.note).toContain('the measured seam earns 213');
@@ -191,7 +215,9 @@ describe('FAT flag and life through assessSeam', () => {
   });
 
   it('an engineer’s override replaces the earned class or its FAT, and says so', () => {
-    const file = seamFile(seam({ loaded: true, requiredFat: 80, detailOverride: '212', fatOverride: 100 }), [e1]);
+    const file = seamFile(seam({ loaded: true, requiredFat: 80, detailOverride: '212', fatOverride: 100 }), [
+      e1,
+    ]);
     const a = assessSeam(file, gradeSeam(file));
     expect(a.fatigue.governing?.id).toBe('212');
     expect(a.fatigue.governing?.fat).toBe(100);

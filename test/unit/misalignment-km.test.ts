@@ -83,7 +83,7 @@ describe('angular misalignment', () => {
   });
 
   it('near β = 0 the series is used: tanh(x)/x ≈ 1 − x²/3 (reference §8.3 numerical notes)', () => {
-    expect(tanhOverX(5e-5)).toBeCloseTo(1 - (5e-5) ** 2 / 3, 15);
+    expect(tanhOverX(5e-5)).toBeCloseTo(1 - 5e-5 ** 2 / 3, 15);
     expect(tanhOverX(0)).toBe(1);
     expect(tanOverX(0)).toBe(1);
   });

@@ -1,6 +1,7 @@
 // Toe stress concentration formulas against the check values of the notch reference
 // (../shared/reference/notch-factors.md, §2 and §5: pure-formula values to 1e-4, and the unit traps).
 import { describe, expect, it } from 'vitest';
+import type { FormulaValue } from '../../src/domain/index.js';
 import {
   anthesButtBending,
   anthesButtOutside,
@@ -18,6 +19,12 @@ import {
 } from '../../src/domain/index.js';
 
 const RAD = Math.PI / 180;
+
+/** The value of a formula the test expects to be there. */
+function present(x: FormulaValue | undefined): FormulaValue {
+  if (!x) throw new Error('expected formula value is missing');
+  return x;
+}
 
 describe('check values (notch reference §5)', () => {
   it('Anthes butt bending, t/ρ = 10, φ = 45° → 1.8431', () => {
@@ -51,14 +58,21 @@ describe('unit traps (notch reference §5): the wrong units give plausible but w
   it('Anthes: l3 in radians would give 1.0645 at t/ρ = 10, φ = 45°; the engine gives 1.8431', () => {
     const s = Math.sin(45 * RAD);
     const poly = 0.181 + 1.207 * s - 1.737 * s * s + 0.689 * s ** 3;
-    const wrong = (1 - 0.156 * 10 ** 0.207) * (1 + poly * 10 ** (0.2919 + 0.3491 * Math.sin(45 * RAD + 3.283)));
+    const wrong =
+      (1 - 0.156 * 10 ** 0.207) * (1 + poly * 10 ** (0.2919 + 0.3491 * Math.sin(45 * RAD + 3.283)));
     expect(wrong).toBeCloseTo(1.0645, 4);
     expect(anthesButtBending(10, 45)).not.toBeCloseTo(wrong, 2);
   });
   it('Kiyak: α in degrees would give about 1.0; the engine (radians) gives 1.8382', () => {
     const a = 45;
     const wrong =
-      1 + 1.1399 * 0.2 ** (0.2062 * a) * a ** 1.067 * Math.exp(-1.6775 * a) * 0.1 ** (-0.295 * a) * 0.121 ** -0.4711;
+      1 +
+      1.1399 *
+        0.2 ** (0.2062 * a) *
+        a ** 1.067 *
+        Math.exp(-1.6775 * a) *
+        0.1 ** (-0.295 * a) *
+        0.121 ** -0.4711;
     expect(wrong).toBeCloseTo(1, 1);
     expect(kiyakButtBending(45, 2, 10, 1)).toBeCloseTo(1.8382, 4);
   });
@@ -116,7 +130,7 @@ describe('per-toe factors', () => {
     expect(kiyak?.outside[0]).toContain('flank angle α (°) = 5');
     const eff = effectiveFactors(n, 0.3);
     const r = rangeOf(eff.values, eff.inRange);
-    const anthes = n.tension[0]!.value + n.bending[0]!.value * 0.3;
+    const anthes = present(n.tension[0]).value + present(n.bending[0]).value * 0.3;
     expect(r).toEqual({ min: anthes, max: anthes, extrapolated: false });
   });
 
@@ -128,7 +142,7 @@ describe('per-toe factors', () => {
 
   it('Kt,eff = Kt,m + Kt,b·b: secondary bending in tension raises it, in compression lowers it (notch reference §0)', () => {
     const n = toeNotchFactors('butt', { t: 10, flankDeg: 40, rho: 1, h: 2 });
-    const km = n.tension[0]!.value;
+    const km = present(n.tension[0]).value;
     const kb = n.bending.map((b) => b.value);
     expect(effectiveFactors(n, 0.2).values).toEqual(kb.map((k) => km + 0.2 * k));
     expect(effectiveFactors(n, -0.2).values).toEqual(kb.map((k) => km - 0.2 * k));
@@ -142,7 +156,7 @@ describe('monotone envelope of a fit that turns over (derived)', () => {
     expect(peak.at).toBeGreaterThan(40);
     expect(peak.at).toBeLessThan(43);
     const n = toeNotchFactors('butt', { t: 10, flankDeg: 55, rho: 1, h: 1 });
-    const k = n.bending.find((b) => b.formula === 'kiyakButtBending')!;
+    const k = present(n.bending.find((b) => b.formula === 'kiyakButtBending'));
     expect(k.formulaValue).toBe(kiyakButtBending(55, 1, 10, 1));
     expect(k.value).toBeCloseTo(peak.value, 10);
     expect(k.notes.join(' ')).toContain('falls again');
@@ -158,7 +172,8 @@ describe('monotone envelope of a fit that turns over (derived)', () => {
     ] as const) {
       let brute = -Infinity;
       for (let i = 0; i <= 400; i++) {
-        for (let j = 0; j <= 400; j++) brute = Math.max(brute, f(1e-3 + ((ratio - 1e-3) * i) / 400, (flank * j) / 400));
+        for (let j = 0; j <= 400; j++)
+          brute = Math.max(brute, f(1e-3 + ((ratio - 1e-3) * i) / 400, (flank * j) / 400));
       }
       const env = envelope(f, 1e-3, ratio, 0, flank).value;
       expect(env).toBeGreaterThanOrEqual(brute - 1e-9);

@@ -69,7 +69,7 @@ describe('sample statistics (derived by hand)', () => {
   });
   it('positions for ±0.5 with s = 1: 18 (t17·1/√18 = 0.497 ≤ 0.5 < t16/√17 = 0.514, t table)', () => {
     expect(positionsForHalfWidth(1, 0.5)).toBe(18);
-    expect((2.11 / Math.sqrt(18)) <= 0.5 && 2.12 / Math.sqrt(17) > 0.5).toBe(true);
+    expect(2.11 / Math.sqrt(18) <= 0.5 && 2.12 / Math.sqrt(17) > 0.5).toBe(true);
   });
   it('no scatter needs only the minimum 2 positions; an impossible target says so (null)', () => {
     expect(positionsForHalfWidth(0, 0.1)).toBe(2);
@@ -154,7 +154,10 @@ describe('only at-pitch readings feed the statistics (design §3)', () => {
     const atPitch = [100, 200, 300, 400].map((p, i) =>
       reading({ toeAngle: 150 + i }, { position: p, toe: { plate: 1, side: 'face' } }),
     );
-    const targeted = reading({ toeAngle: 120 }, { position: 250, toe: { plate: 1, side: 'face' }, sampling: 'targeted' });
+    const targeted = reading(
+      { toeAngle: 120 },
+      { position: 250, toe: { plate: 1, side: 'face' }, sampling: 'targeted' },
+    );
     const file = seamFile(seam, [...atPitch, targeted]);
     const a = assessSeam(file, gradeSeam(file));
     const toe = a.sampling.parameters.find((p) => p.label === 'toe angle, plate 1 face-side toe');

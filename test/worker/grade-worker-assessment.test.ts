@@ -9,7 +9,9 @@ import { assessSeam, gradeSeam, INDICATIVE_CAUTION, parseSeamFile } from '../../
 import type { GradeApi } from '../../workers/grade-api.js';
 import { BUILD_TIMEOUT_MS, buildNode, NODE_WORKER, ROOT } from '../support/build-node.js';
 
-const example = JSON.parse(readFileSync(join(ROOT, 'docs/examples/bracket-fillet-site.json'), 'utf8')) as unknown;
+const example = JSON.parse(
+  readFileSync(join(ROOT, 'docs/examples/bracket-fillet-site.json'), 'utf8'),
+) as unknown;
 
 let worker: Worker | undefined;
 let api: Remote<GradeApi>;

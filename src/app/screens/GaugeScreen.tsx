@@ -1,4 +1,5 @@
 import { useState } from 'preact/hooks';
+import { EXECUTION_CLASS_PRESETS } from '../../domain/index.js';
 import { hrefOf } from '../router.js';
 import { GaugeEntry } from './gauge/GaugeEntry.js';
 import { readExaminer } from './gauge/examiner.js';
@@ -22,9 +23,12 @@ function SeamFacts({ data }: { readonly data: SeamData }) {
   const { seam, rounds } = data.file;
   const latest = [...rounds].sort((a, b) => b.number - a.number)[0];
   const acc = seam.acceptance;
-  const required = acc.preset
-    ? `${acc.preset}${acc.level ? ` (level ${acc.level})` : ''}`
-    : `level ${acc.level ?? '?'}`;
+  const preset = acc.preset ? EXECUTION_CLASS_PRESETS[acc.preset] : null;
+  // Per-imperfection levels (from the preset or set on the seam) are counted here; the grade names each one.
+  const setApart = Object.keys({ ...preset?.overrides, ...acc.overrides }).length;
+  const required = `${acc.preset ? `${acc.preset}: ` : ''}level ${acc.level ?? preset?.level ?? '?'}${
+    setApart ? `, other levels for ${setApart} imperfection number${setApart === 1 ? '' : 's'}` : ''
+  }`;
   return (
     <dl class="gauge-facts">
       <div>
@@ -117,7 +121,7 @@ export default function GaugeScreen({ id }: { readonly id: string }) {
         </a>
         <h1 id="gauge-title">
           Gauge: {data.file.seam.label}
-          {data.record.namespace === 'demo' ? <span class="tag"> demo — never synced</span> : null}
+          {data.record.namespace === 'demo' ? <span class="tag tag-demo">demo</span> : null}
         </h1>
         <SeamFacts data={data} />
         <p class="gauge-caution-link">

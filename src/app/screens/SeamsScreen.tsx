@@ -105,6 +105,8 @@ function SeamRow({ rec }: { readonly rec: SeamRecord }) {
   );
 }
 
+const FIRST_SCREEN_MARK = 'beadbook:first-screen';
+
 /** The first screen: every seam on this device, one search box, the level of each at a glance. */
 export function SeamsScreen() {
   const [load, setLoad] = useState<Load>({ state: 'loading' });
@@ -125,6 +127,10 @@ export function SeamsScreen() {
       const store = await getStore();
       const seams = sortSeams(await store.listSeams());
       setLoad({ state: 'ready', seams });
+      // npm run bench:app times the cold start to this mark: the list is read from storage and on screen.
+      if (!performance.getEntriesByName(FIRST_SCREEN_MARK).length) {
+        requestAnimationFrame(() => performance.mark(FIRST_SCREEN_MARK));
+      }
       const update = (rec: SeamRecord) =>
         setLoad((l) =>
           l.state === 'ready'

@@ -3,6 +3,7 @@ import type { ImportReport } from '../../store/api.js';
 import { Caution } from '../components/Caution.js';
 // Version, offline readiness and storage protection (with the button to ask the browser to keep the data).
 import { AboutPanel } from '../pwa/AboutPanel.js';
+import { InstallHint } from '../pwa/InstallHint.js';
 import { getStore } from '../services/store.js';
 
 const errorText = (e: unknown) => (e instanceof Error ? e.message : String(e));
@@ -186,6 +187,7 @@ export default function SettingsScreen() {
   return (
     <section class="settings" aria-labelledby="settings-title">
       <h1 id="settings-title">Settings</h1>
+      <InstallHint />
       <AboutPanel />
       <div class="panel">
         <h2>Backup</h2>

@@ -43,11 +43,18 @@ export function assessSeam(file: SeamFile, grade: SeamGrade, options: AssessOpti
   const effectiveNotch = effectiveNotchSection(setup, picks, bending, fatigue, measured);
   const sensitivity =
     options.sensitivity === false
-      ? { caution: INDICATIVE_CAUTION, assumptions: ['not asked for'], rankedBy: 'toe factor' as const, rows: [] }
+      ? {
+          caution: INDICATIVE_CAUTION,
+          assumptions: ['not asked for'],
+          rankedBy: 'toe factor' as const,
+          rows: [],
+        }
       : sensitivitySection(setup, mis, picks, {
           kmMeasured: misalignment.kmCalc !== null,
           covered: covered ? KM_COVERED[covered].value : null,
-          fatTimesThickness: fatigue.governing ? fatigue.governing.fat * fatigue.governing.thicknessFactor : null,
+          fatTimesThickness: fatigue.governing
+            ? fatigue.governing.fat * fatigue.governing.thicknessFactor
+            : null,
           stressRange: file.seam.fatigue?.designStressRange ?? null,
         });
   const assumptions = [...setup.assumptions];

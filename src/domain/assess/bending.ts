@@ -107,7 +107,11 @@ export interface AngularDelta {
 }
 
 /** km − 1 from a kink |α| (degrees) on a plate, or why it cannot be given. */
-export function deltaAngular(setup: Setup, plate: 1 | 2, absAlphaDeg: number): AngularDelta | { notAssessed: string } {
+export function deltaAngular(
+  setup: Setup,
+  plate: 1 | 2,
+  absAlphaDeg: number,
+): AngularDelta | { notAssessed: string } {
   const t = setup.family === 'butt' ? plateT(setup, plate) : setup.t1;
   const alpha = absAlphaDeg * RAD;
   const { sigmaM, E, restraint: ends } = setup;
@@ -129,9 +133,14 @@ export function deltaAngular(setup: Setup, plate: 1 | 2, absAlphaDeg: number): A
     const beta = straighteningBeta(Math.min(l1, l2), t, sigmaM, E);
     factor = straighteningFactor(beta, ends, sigmaM < 0);
     if (!Number.isFinite(factor)) {
-      return { notAssessed: 'the compressive membrane stress reaches the elastic buckling load of the kinked arm' };
+      return {
+        notAssessed: 'the compressive membrane stress reaches the elastic buckling load of the kinked arm',
+      };
     }
-    how = sigmaM > 0 ? `straightening ${ends === 'clamped' ? 'tanh(β/2)/(β/2)' : 'tanh(β)/β'}` : `amplification ${ends === 'clamped' ? 'tan(β/2)/(β/2)' : 'tan(β)/β'}`;
+    how =
+      sigmaM > 0
+        ? `straightening ${ends === 'clamped' ? 'tanh(β/2)/(β/2)' : 'tanh(β)/β'}`
+        : `amplification ${ends === 'clamped' ? 'tan(β/2)/(β/2)' : 'tan(β)/β'}`;
   }
   const lambda = ends === 'clamped' ? 3 : 6;
   return {
@@ -166,7 +175,10 @@ export function bendingOf(setup: Setup, mis: MisalignmentInputs): BendingState {
     let lin = -Infinity;
     for (const m of [mis.eHi, mis.eLo]) {
       if (!m) continue;
-      lin = Math.max(lin, linearSign(setup.joint, s, m.value) * deltaAxial(setup, s.plate, Math.abs(m.value)));
+      lin = Math.max(
+        lin,
+        linearSign(setup.joint, s, m.value) * deltaAxial(setup, s.plate, Math.abs(m.value)),
+      );
     }
     let an = -Infinity;
     for (const m of [mis.aHi, mis.aLo]) {

@@ -31,9 +31,11 @@ export function measuredForClass(readings: readonly Reading[]): MeasuredForClass
     if (a !== undefined && (!minToe || a < (minToe.values.toeAngle as number))) minToe = r;
     const h = r.values.reinforcementHeight;
     const b = r.values.reinforcementWidth;
-    if (h !== undefined && b !== undefined && b > 0 && (!maxRatio || h / b > maxRatio.v)) maxRatio = { r, v: h / b };
+    if (h !== undefined && b !== undefined && b > 0 && (!maxRatio || h / b > maxRatio.v))
+      maxRatio = { r, v: h / b };
   }
-  const where = (r: Reading): string => `${positionOf(r)} mm (${r.id}${readingSide(r) ? `, ${readingSide(r)}` : ''})`;
+  const where = (r: Reading): string =>
+    `${positionOf(r)} mm (${r.id}${readingSide(r) ? `, ${readingSide(r)}` : ''})`;
   const out: { -readonly [K in keyof MeasuredForClass]: MeasuredForClass[K] } = {};
   if (minToe) out.minToeAngle = { value: minToe.values.toeAngle as number, where: where(minToe) };
   if (maxRatio) out.maxReinforcementRatio = { value: maxRatio.v, where: where(maxRatio.r) };
@@ -50,11 +52,20 @@ export function detailIdOf(text: string): DetailId | null {
 function thicknessBasis(setup: Setup): { t: number; L?: number } {
   if (setup.family === 'butt') return { t: Math.min(setup.t1, setup.t2) };
   const legs = setup.seam.nominalLegs;
-  const leg = legs ? Math.max(legs.leg1, legs.leg2) : setup.seam.nominalThroat !== undefined ? setup.seam.nominalThroat * Math.SQRT2 : undefined;
+  const leg = legs
+    ? Math.max(legs.leg1, legs.leg2)
+    : setup.seam.nominalThroat !== undefined
+      ? setup.seam.nominalThroat * Math.SQRT2
+      : undefined;
   return leg === undefined ? { t: setup.t1 } : { t: setup.t1, L: setup.t2 + 2 * leg };
 }
 
-export function detailUse(setup: Setup, id: DetailId, fatOverride: number | undefined, kmEff: number | null): DetailUse {
+export function detailUse(
+  setup: Setup,
+  id: DetailId,
+  fatOverride: number | undefined,
+  kmEff: number | null,
+): DetailUse {
   const d = DETAILS[id];
   const fat = fatOverride ?? d.fat[setup.material];
   const { t, L } = thicknessBasis(setup);
@@ -63,7 +74,10 @@ export function detailUse(setup: Setup, id: DetailId, fatOverride: number | unde
     id,
     title: d.title,
     fat,
-    fatSource: fatOverride !== undefined ? 'fatigue.fatOverride' : `IIW detail ${id}, ${setup.material} (${d.confidence})`,
+    fatSource:
+      fatOverride !== undefined
+        ? 'fatigue.fatOverride'
+        : `IIW detail ${id}, ${setup.material} (${d.confidence})`,
     crackAt: d.crackAt,
     thicknessFactor: tf,
     thicknessExponent: d.thicknessExponent,
@@ -71,7 +85,12 @@ export function detailUse(setup: Setup, id: DetailId, fatOverride: number | unde
   };
 }
 
-export function lifeAt(stressRange: number, fatEq: number, requiredCycles: number | null, curve: string): LifeEstimate {
+export function lifeAt(
+  stressRange: number,
+  fatEq: number,
+  requiredCycles: number | null,
+  curve: string,
+): LifeEstimate {
   const cycles = cyclesToFailure(stressRange, fatEq);
   return {
     stressRange,
@@ -91,8 +110,10 @@ function lifeOf(setup: Setup, fatEq: number | null): LifeEstimate | { notAssesse
   const missing: string[] = [];
   if (f?.designStressRange === undefined) missing.push('fatigue.designStressRange');
   if (fatEq === null) missing.push('a FAT equivalent');
-  if (missing.length || fatEq === null || f?.designStressRange === undefined) return { notAssessed: `needs ${missing.join(' and ')}` };
-  if (!(f.designStressRange > 0)) return { notAssessed: 'the design stress range is zero: no fatigue damage to count' };
+  if (missing.length || fatEq === null || f?.designStressRange === undefined)
+    return { notAssessed: `needs ${missing.join(' and ')}` };
+  if (!(f.designStressRange > 0))
+    return { notAssessed: 'the design stress range is zero: no fatigue damage to count' };
   return lifeAt(f.designStressRange, fatEq, f.cycles ?? null, CURVE);
 }
 
@@ -116,12 +137,19 @@ function flagOf(fatEq: number | null, required: number | null): FatFlag {
 }
 
 /** The nominal-stress fatigue class flag and the indicative life. */
-export function fatigueSection(setup: Setup, choice: ClassChoice, mis: MisalignmentAssessment): FatigueAssessment {
+export function fatigueSection(
+  setup: Setup,
+  choice: ClassChoice,
+  mis: MisalignmentAssessment,
+): FatigueAssessment {
   const f = setup.seam.fatigue;
   const kmEff = mis.kmEff;
   const details = choice.ids.map((id) => detailUse(setup, id, f?.fatOverride, kmEff));
   const governing = details.reduce<DetailUse | null>(
-    (g, d) => (!g || (d.fatEquivalent ?? d.fat * d.thicknessFactor) < (g.fatEquivalent ?? g.fat * g.thicknessFactor) ? d : g),
+    (g, d) =>
+      !g || (d.fatEquivalent ?? d.fat * d.thicknessFactor) < (g.fatEquivalent ?? g.fat * g.thicknessFactor)
+        ? d
+        : g,
     null,
   );
   const assumptions = [
@@ -129,8 +157,10 @@ export function fatigueSection(setup: Setup, choice: ClassChoice, mis: Misalignm
     'FAT equivalent = FAT · f(t) / km,eff with f(R) = 1 (IIW case III, residual stresses high)',
   ];
   if (f?.detailOverride) assumptions.push(`detail ${f.detailOverride} chosen by fatigue.detailOverride`);
-  if (f?.fatOverride !== undefined) assumptions.push(`FAT ${f.fatOverride} MPa chosen by fatigue.fatOverride`);
-  if (details.some((d) => d.crackAt !== 'toe')) assumptions.push('km,eff also applied to the root or throat detail');
+  if (f?.fatOverride !== undefined)
+    assumptions.push(`FAT ${f.fatOverride} MPa chosen by fatigue.fatOverride`);
+  if (details.some((d) => d.crackAt !== 'toe'))
+    assumptions.push('km,eff also applied to the root or throat detail');
   let designDetail: FatigueAssessment['designDetail'] = null;
   if (f?.detailClass !== undefined) {
     const id = choice.designId;
@@ -145,14 +175,21 @@ export function fatigueSection(setup: Setup, choice: ClassChoice, mis: Misalignm
     f?.requiredFat !== undefined
       ? { value: f.requiredFat, basis: 'fatigue.requiredFat' }
       : choice.designId !== null
-        ? { value: DETAILS[choice.designId].fat[setup.material], basis: `the drawing's detail class ${choice.designId}` }
+        ? {
+            value: DETAILS[choice.designId].fat[setup.material],
+            basis: `the drawing's detail class ${choice.designId}`,
+          }
         : null;
   const missing: string[] = [];
   const loaded = f?.loaded ?? null;
   if (!f) missing.push('seam.fatigue (is the seam fatigue-loaded?)');
   else if (!f.loaded) missing.push('the seam is marked not fatigue-loaded');
-  if (!details.length) missing.push(`a fatigue class: ${choice.earned.why.join('; ')}; give fatigue.detailOverride or fatigue.fatOverride`);
-  if (kmEff === null) missing.push(`km,eff: ${mis.missing.join('; ') || 'misalignment not assessable for this joint'}`);
+  if (!details.length)
+    missing.push(
+      `a fatigue class: ${choice.earned.why.join('; ')}; give fatigue.detailOverride or fatigue.fatOverride`,
+    );
+  if (kmEff === null)
+    missing.push(`km,eff: ${mis.missing.join('; ') || 'misalignment not assessable for this joint'}`);
   if (!requiredFat) missing.push('fatigue.requiredFat (or a catalogue id in fatigue.detailClass)');
   const fatEq = governing?.fatEquivalent ?? null;
   const flag = loaded ? flagOf(fatEq, requiredFat?.value ?? null) : 'notAssessable';
@@ -220,12 +257,16 @@ export function effectiveNotchSection(
 ): EffectiveNotchCheck {
   const toes = picks.map((p) => notchToe(setup, p, bending.b[p.surface] ?? 0));
   const rated = toes.filter((t) => t.fatEquivalent !== null);
-  const governing = rated.reduce<NotchToe | null>((g, t) => (!g || (t.fatEquivalent as number) < (g.fatEquivalent as number) ? t : g), null);
+  const governing = rated.reduce<NotchToe | null>(
+    (g, t) => (!g || (t.fatEquivalent as number) < (g.fatEquivalent as number) ? t : g),
+    null,
+  );
   const tRef = picks[0]?.geometry.t ?? Math.min(setup.t1, setup.t2);
   const ref = notchReference(tRef, setup.material);
   const missing: string[] = [];
   if (!picks.length) missing.push('toe angles at a toe of the loaded plate');
-  else if (!rated.length) missing.push('a toe inside the formulas’ validity at the reference radius (see each toe)');
+  else if (!rated.length)
+    missing.push('a toe inside the formulas’ validity at the reference radius (see each toe)');
   if (!nominal.requiredFat) missing.push('fatigue.requiredFat');
   if (!nominal.loaded) missing.push('a fatigue-loaded seam');
   const assumptions = [

@@ -1,7 +1,14 @@
 import { INDICATIVE_CAUTION } from '../caution.js';
 import { dnvButtScf, dnvCruciformScf, dnvThicknessTransitionScf } from '../misalignment/axial.js';
 import { KM_COVERED, kmEffective, type CoveredRow } from '../misalignment/covered.js';
-import { deltaAngular, deltaAxial, surfacesOf, type BendingState, type Measured, type MisalignmentInputs } from './bending.js';
+import {
+  deltaAngular,
+  deltaAxial,
+  surfacesOf,
+  type BendingState,
+  type Measured,
+  type MisalignmentInputs,
+} from './bending.js';
 import type { Setup } from './setup.js';
 import type { Governing, MisalignmentAssessment } from './types.js';
 
@@ -55,7 +62,8 @@ function angularOf(setup: Setup, mis: MisalignmentInputs): MisalignmentAssessmen
     highest: governing(mis.aHi, 'deg'),
     lowest: governing(mis.aLo, 'deg'),
     formula: d1.formula,
-    source: 'BS 7910 Annex D; IIW Recommendations 2016, App. 6.3 (tanh forms checked by a beam-column solution)',
+    source:
+      'BS 7910 Annex D; IIW Recommendations 2016, App. 6.3 (tanh forms checked by a beam-column solution)',
     kmByPlate: [1 + d1.delta, 1 + ('delta' in d2 ? d2.delta : d1.delta)],
     straighteningFactor: d1.factor,
   };
@@ -100,16 +108,24 @@ export function misalignmentSection(
   const angular = angularOf(setup, mis);
   const surfaces = surfacesOf(setup.joint).map((s, i) => {
     const b = bending.b[i] ?? 0;
-    return { ...s, bendingRatio: b, km: 1 + b, state: b > 0 ? 'tension' : b < 0 ? 'compression' : 'none' } as const;
+    return {
+      ...s,
+      bendingRatio: b,
+      km: 1 + b,
+      state: b > 0 ? 'tension' : b < 0 ? 'compression' : 'none',
+    } as const;
   });
   const missing: string[] = [];
   const assumptions = [...setup.assumptions];
   const measured = linear !== null || angular !== null;
   if (!measured) missing.push('linearMisalignment or angularMisalignment readings');
   if (angular && 'notAssessed' in angular) missing.push(`angular km: ${angular.notAssessed}`);
-  if (measured && !linear && setup.joint !== 'filletT') assumptions.push('linear misalignment not measured: taken as zero');
+  if (measured && !linear && setup.joint !== 'filletT')
+    assumptions.push('linear misalignment not measured: taken as zero');
   if (measured && !angular) assumptions.push('angular misalignment not measured: taken as zero');
-  assumptions.push('the largest linear and the largest angular misalignment are combined at each surface, wherever measured');
+  assumptions.push(
+    'the largest linear and the largest angular misalignment are combined at each surface, wherever measured',
+  );
   let state: MisalignmentAssessment['state'];
   if (setup.joint === 'lap') state = 'notApplicable';
   else if (!measured) state = 'notMeasured';
@@ -134,7 +150,12 @@ export function misalignmentSection(
     governingSurface: kmCalc !== null && top ? { plate: top.plate, surface: top.surface } : null,
     kmCovered:
       row && covered
-        ? { value: row.value, row: covered, label: row.label, source: 'IIW Recommendations §3.8.2 table (recalled)' }
+        ? {
+            value: row.value,
+            row: covered,
+            label: row.label,
+            source: 'IIW Recommendations §3.8.2 table (recalled)',
+          }
         : null,
     kmEff: kmCalc !== null && row ? kmEffective(kmCalc, row.value) : null,
     dnv: dnvOf(setup, mis),

@@ -34,7 +34,10 @@ export const positionOf = (r: Reading): number => r.position ?? r.start ?? 0;
 export function resolutionOf(r: Reading, unit: 'mm' | 'deg'): { value: number; basis: string } {
   const v = unit === 'mm' ? r.instrument.resolutionMm : r.instrument.resolutionDeg;
   return v === undefined
-    ? { value: DEFAULT_RESOLUTION[unit], basis: `default ${DEFAULT_RESOLUTION[unit]} ${unit === 'mm' ? 'mm' : '°'} (resolution not recorded)` }
+    ? {
+        value: DEFAULT_RESOLUTION[unit],
+        basis: `default ${DEFAULT_RESOLUTION[unit]} ${unit === 'mm' ? 'mm' : '°'} (resolution not recorded)`,
+      }
     : { value: v, basis: `instrument ${r.instrument.id} resolution` };
 }
 
@@ -47,7 +50,13 @@ export function midPlaneE(setup: Setup, r: Reading): number | undefined {
 
 function measured(r: Reading, value: number, unit: 'mm' | 'deg'): Measured {
   const res = resolutionOf(r, unit);
-  return { readingId: r.id, position: positionOf(r), value, resolution: res.value, resolutionBasis: res.basis };
+  return {
+    readingId: r.id,
+    position: positionOf(r),
+    value,
+    resolution: res.value,
+    resolutionBasis: res.basis,
+  };
 }
 
 /** The most positive and most negative linear and angular misalignments of the round (targeted readings included). */
@@ -113,6 +122,11 @@ export class SideValues {
     const same = entry.atPosition.get(positionOf(r));
     if (same) return { value: same.values[key] as number, basis: `reading ${same.id} at the same position` };
     const big = entry.largest;
-    return big ? { value: big.values[key] as number, basis: `largest on the ${key === 'throat' ? 'seam' : `${side} side`} (reading ${big.id})` } : undefined;
+    return big
+      ? {
+          value: big.values[key] as number,
+          basis: `largest on the ${key === 'throat' ? 'seam' : `${side} side`} (reading ${big.id})`,
+        }
+      : undefined;
   }
 }

@@ -2,7 +2,7 @@ import { BUILT_IN_CRITERIA } from '../criteria/registry.js';
 import type { ReadingGrade } from '../grade/reading.js';
 import type { SeamGrade } from '../grade/seam.js';
 import { readingSide } from '../model/joint.js';
-import { PARAMETER_NAMES, PARAMETERS, type ParameterName } from '../model/parameters.js';
+import { PARAMETERS, type ParameterName } from '../model/parameters.js';
 import type { Edition, Reading } from '../model/seam-file.js';
 import { adequacyOf, type SamplePoint } from '../sampling/adequacy.js';
 import { DEFAULT_RESOLUTION, midPlaneE, positionOf } from './readings.js';
@@ -67,10 +67,14 @@ export function samplingSection(
   for (const rg of roundGrade?.readings ?? []) graded.set(rg.readingId, rg);
   const columnsOnly = !!roundGrade && roundGrade.readingCount > 0 && roundGrade.readings.length === 0;
   const rows = rowParameter(setup.seam.acceptance.edition);
-  const groups = new Map<string, { name: ParameterName; place: string; points: SamplePoint[]; required: string | null }>();
+  const groups = new Map<
+    string,
+    { name: ParameterName; place: string; points: SamplePoint[]; required: string | null }
+  >();
   for (const r of readings) {
     if (r.sampling !== 'atPitch') continue;
-    for (const name of PARAMETER_NAMES) {
+    for (const field of Object.keys(r.values)) {
+      const name = field as ParameterName;
       const raw = r.values[name];
       if (raw === undefined) continue;
       const value = name === 'linearMisalignment' ? (midPlaneE(setup, r) as number) : raw;

@@ -4,7 +4,7 @@ import type { ToeGeometry } from '../notch/types.js';
 import { bendingOf, type Measured, type MisalignmentInputs } from './bending.js';
 import { positionOf, resolutionOf } from './readings.js';
 import type { Setup } from './setup.js';
-import { toeFactor, toeLabel, type ToePick } from './toes.js';
+import { toeLabel, toeScore, type ToePick } from './toes.js';
 import type { Sensitivity, SensitivityRow } from './types.js';
 
 /** What stays fixed while one input moves: the class, km,covered and the design stress range. */
@@ -19,18 +19,35 @@ export interface Fixed {
 interface Outcome {
   readonly life: number | null;
   readonly toes: readonly number[];
+  readonly b: readonly number[];
 }
 
-function evaluate(setup: Setup, mis: MisalignmentInputs, picks: readonly ToePick[], fixed: Fixed): Outcome {
-  const bending = bendingOf(setup, mis);
-  let life: number | null = null;
-  if (fixed.kmMeasured && fixed.covered !== null && fixed.fatTimesThickness !== null && fixed.stressRange !== null) {
-    const kmCalc = 1 + Math.max(0, ...bending.b);
-    const kmEff = Math.max(1, kmCalc / fixed.covered);
-    life = cyclesToFailure(fixed.stressRange, fixed.fatTimesThickness / kmEff);
+function lifeFrom(b: readonly number[], fixed: Fixed): number | null {
+  if (!fixed.kmMeasured || fixed.covered === null || fixed.fatTimesThickness === null || fixed.stressRange === null) {
+    return null;
   }
-  const toes = picks.map((p) => toeFactor(setup, p.geometry, bending.b[p.surface] ?? 0).range?.max ?? NaN);
-  return { life, toes };
+  const kmCalc = 1 + Math.max(0, ...b);
+  const kmEff = Math.max(1, kmCalc / fixed.covered);
+  return cyclesToFailure(fixed.stressRange, fixed.fatTimesThickness / kmEff);
+}
+
+/** Life and toe factors after a change; a change of one toe's geometry leaves km, life and the other toes alone. */
+function evaluate(
+  setup: Setup,
+  base: Outcome | null,
+  mis: MisalignmentInputs,
+  picks: readonly ToePick[],
+  changedToe: number | null,
+  fixed: Fixed,
+): Outcome {
+  if (base && changedToe !== null) {
+    const p = picks[changedToe] as ToePick;
+    const toes = [...base.toes];
+    toes[changedToe] = toeScore(setup, p.geometry, base.b[p.surface] ?? 0);
+    return { life: base.life, toes, b: base.b };
+  }
+  const { b } = bendingOf(setup, mis);
+  return { life: lifeFrom(b, fixed), toes: picks.map((p) => toeScore(setup, p.geometry, b[p.surface] ?? 0)), b };
 }
 
 interface Input {
@@ -42,11 +59,19 @@ interface Input {
   readonly uncertainty: number;
   readonly basis: string;
   readonly apply: (d: number) => { mis: MisalignmentInputs; picks: readonly ToePick[] };
+  /** The toe whose geometry the input is, or null for a misalignment. */
+  readonly toe: number | null;
 }
 
 function misalignmentInputsToVary(mis: MisalignmentInputs, picks: readonly ToePick[]): Input[] {
   const out: Input[] = [];
-  const add = (key: keyof MisalignmentInputs, m: Measured | null, name: string, unit: 'mm' | 'deg', where: string): void => {
+  const add = (
+    key: keyof MisalignmentInputs,
+    m: Measured | null,
+    name: string,
+    unit: 'mm' | 'deg',
+    where: string,
+  ): void => {
     if (!m || out.some((x) => x.readingId === m.readingId && x.input === name)) return;
     out.push({
       input: name,
@@ -56,6 +81,7 @@ function misalignmentInputsToVary(mis: MisalignmentInputs, picks: readonly ToePi
       unit,
       uncertainty: m.resolution,
       basis: m.resolutionBasis,
+      toe: null,
       apply: (d) => {
         const next: { -readonly [K in keyof MisalignmentInputs]: MisalignmentInputs[K] } = { ...mis };
         // The same reading may be both the highest and the lowest of its kind (e… or a…): move it in both places.
@@ -77,7 +103,10 @@ function misalignmentInputsToVary(mis: MisalignmentInputs, picks: readonly ToePi
 function toeInputsToVary(setup: Setup, mis: MisalignmentInputs, picks: readonly ToePick[]): Input[] {
   const out: Input[] = [];
   picks.forEach((p, i) => {
-    const with_ = (g: ToeGeometry) => ({ mis, picks: picks.map((q, j) => (j === i ? { ...q, geometry: g } : q)) });
+    const with_ = (g: ToeGeometry) => ({
+      mis,
+      picks: picks.map((q, j) => (j === i ? { ...q, geometry: g } : q)),
+    });
     const where = `${toeLabel(setup, p.toe)} at ${positionOf(p.reading)} mm`;
     const deg = resolutionOf(p.reading, 'deg');
     const mm = resolutionOf(p.reading, 'mm');
@@ -90,6 +119,7 @@ function toeInputsToVary(setup: Setup, mis: MisalignmentInputs, picks: readonly 
       unit: 'deg',
       uncertainty: deg.value,
       basis: deg.basis,
+      toe: i,
       apply: (d) => with_({ ...p.geometry, flankDeg: 180 - Math.min(180, Math.max(90, angle + d)) }),
     });
     if (p.radiusBasis === 'measured') {
@@ -101,6 +131,7 @@ function toeInputsToVary(setup: Setup, mis: MisalignmentInputs, picks: readonly 
         unit: 'mm',
         uncertainty: mm.value,
         basis: mm.basis,
+        toe: i,
         apply: (d) => with_({ ...p.geometry, rho: Math.max(1e-3, p.geometry.rho + d) }),
       });
     }
@@ -114,6 +145,7 @@ function toeInputsToVary(setup: Setup, mis: MisalignmentInputs, picks: readonly 
         unit: 'mm',
         uncertainty: mm.value,
         basis: mm.basis,
+        toe: i,
         apply: (d) => with_({ ...p.geometry, h: Math.max(1e-6, h + d) }),
       });
     }
@@ -128,14 +160,14 @@ export function sensitivitySection(
   picks: readonly ToePick[],
   fixed: Fixed,
 ): Sensitivity {
-  const base = evaluate(setup, mis, picks, fixed);
+  const base = evaluate(setup, null, mis, picks, null, fixed);
   const byLife = base.life !== null && Number.isFinite(base.life);
   const inputs = [...misalignmentInputsToVary(mis, picks), ...toeInputsToVary(setup, mis, picks)];
   const rows: SensitivityRow[] = inputs.map((inp) => {
     const lo = inp.apply(-inp.uncertainty);
     const hi = inp.apply(inp.uncertainty);
-    const a = evaluate(setup, lo.mis, lo.picks, fixed);
-    const b = evaluate(setup, hi.mis, hi.picks, fixed);
+    const a = evaluate(setup, base, lo.mis, lo.picks, inp.toe, fixed);
+    const b = evaluate(setup, base, hi.mis, hi.picks, inp.toe, fixed);
     const rel = (x: number | null): number => (x === null || base.life === null ? 0 : x / base.life - 1);
     const life = byLife ? { minus: rel(a.life), plus: rel(b.life) } : null;
     const toeFactors = picks.map((p, i) => ({

@@ -1,6 +1,14 @@
 import { INDICATIVE_CAUTION } from '../caution.js';
 import type { Reading } from '../model/seam-file.js';
-import { effectiveFactors, rangeOf, toeNotchFactors, type FactorRange, type ToeNotch } from '../notch/toe-factors.js';
+import {
+  effectiveFactors,
+  effectiveMax,
+  notchNumbers,
+  rangeOf,
+  toeNotchFactors,
+  type FactorRange,
+  type ToeNotch,
+} from '../notch/toe-factors.js';
 import type { ToeGeometry } from '../notch/types.js';
 import { surfaceIndex, toeSurface, type BendingState } from './bending.js';
 import { positionOf, SideValues } from './readings.js';
@@ -44,10 +52,21 @@ export function toeFactor(setup: Setup, g: ToeGeometry, b: number): ToeFactor {
   const notch = toeNotchFactors(setup.family, g);
   const eff = effectiveFactors(notch, b);
   const effective: EffectiveValue[] = notch.bending.length
-    ? notch.bending.map((x, i) => ({ formula: x.formula, value: eff.values[i] as number, inRange: eff.inRange[i] as boolean }))
-    : eff.values.map((v, i) => ({ formula: 'lawrenceTension', value: v, inRange: eff.inRange[i] as boolean }));
+    ? notch.bending.map((x, i) => ({
+        formula: x.formula,
+        value: eff.values[i] as number,
+        inRange: eff.inRange[i] as boolean,
+      }))
+    : eff.values.map((v, i) => ({
+        formula: 'lawrenceTension',
+        value: v,
+        inRange: eff.inRange[i] as boolean,
+      }));
   return { notch, effective, range: rangeOf(eff.values, eff.inRange) };
 }
+
+/** The upper end of a toe's effective-factor range, computed without text or objects (ranking, sensitivity). */
+export const toeScore = (setup: Setup, g: ToeGeometry, b: number): number => effectiveMax(notchNumbers(setup.family, g), b);
 
 function geometryOf(
   setup: Setup,
@@ -65,7 +84,11 @@ function geometryOf(
       : smallestRadius !== undefined
         ? 'not measured here: the smallest radius measured at this toe'
         : `not measured at this toe: the reference radius ${referenceRadius(t)} mm`;
-  const g: { -readonly [K in keyof ToeGeometry]: ToeGeometry[K] } = { t, flankDeg: 180 - (r.values.toeAngle as number), rho };
+  const g: { -readonly [K in keyof ToeGeometry]: ToeGeometry[K] } = {
+    t,
+    flankDeg: 180 - (r.values.toeAngle as number),
+    rho,
+  };
   let hBasis: string | null = null;
   if (setup.family === 'butt') {
     const h = sides.get(r, toe.side, 'reinforcementHeight');
@@ -105,20 +128,30 @@ export function pickToes(
     if (!list.length) continue;
     const surface = toeSurface(setup.joint, toe);
     if (!surface) {
-      notRanked.push({ toe, reason: 'a toe on the attachment: the fatigue loads are taken on the main plate (plate 1)' });
+      notRanked.push({
+        toe,
+        reason: 'a toe on the attachment: the fatigue loads are taken on the main plate (plate 1)',
+      });
       continue;
     }
     const si = surfaceIndex(setup.joint, surface);
     const b = bending.b[si] ?? 0;
     let smallest: number | undefined;
-    for (const r of list) if (r.values.toeRadius !== undefined) smallest = Math.min(smallest ?? Infinity, r.values.toeRadius);
+    for (const r of list)
+      if (r.values.toeRadius !== undefined) smallest = Math.min(smallest ?? Infinity, r.values.toeRadius);
     let best: { pick: ToePick; score: number } | null = null;
     for (const r of list) {
       const { g, radiusBasis, hBasis } = geometryOf(setup, toe, r, smallest, sides);
-      const f = toeFactor(setup, g, b);
-      const score = f.range?.max ?? -Infinity;
-      if (!best || score > best.score || (score === best.score && positionOf(r) < positionOf(best.pick.reading))) {
-        best = { pick: { toe, surface: si, reading: r, geometry: g, radiusBasis, hBasis, count: list.length }, score };
+      const score = toeScore(setup, g, b);
+      if (
+        !best ||
+        score > best.score ||
+        (score === best.score && positionOf(r) < positionOf(best.pick.reading))
+      ) {
+        best = {
+          pick: { toe, surface: si, reading: r, geometry: g, radiusBasis, hBasis, count: list.length },
+          score,
+        };
       }
     }
     if (best) picks.push(best.pick);
@@ -167,15 +200,21 @@ export function rankToes(
 ): ToeRanking {
   const scored = picks
     .map((p) => ({ p, a: toeAssessment(setup, p, bending.b[p.surface] ?? 0, 0) }))
-    .sort((x, y) => (y.a.range?.max ?? -Infinity) - (x.a.range?.max ?? -Infinity) || x.p.toe.plate - y.p.toe.plate);
+    .sort(
+      (x, y) =>
+        (y.a.range?.max ?? -Infinity) - (x.a.range?.max ?? -Infinity) || x.p.toe.plate - y.p.toe.plate,
+    );
   const toes = scored.map((s, i) => ({ ...s.a, rank: i + 1 }));
   const assumptions = [
     'Kt,eff = Kt,m + Kt,b·b against the nominal membrane stress; b is the signed secondary-bending ratio of the toe’s surface',
     'each toe at its worst reading, combined with the worst misalignment for that surface, which may lie at another position (conservative)',
     'Kt,m from the Lawrence form with recalled α_L; Kt,b from the bending formulas inside their validity (the range spans them)',
   ];
-  if (!misalignmentMeasured) assumptions.push('no misalignment measured: b = 0 (no secondary bending) at every toe');
-  const bases = new Set(picks.map((p) => p.radiusBasis === 'measured' || p.radiusBasis.startsWith('not measured here')));
+  if (!misalignmentMeasured)
+    assumptions.push('no misalignment measured: b = 0 (no secondary bending) at every toe');
+  const bases = new Set(
+    picks.map((p) => p.radiusBasis === 'measured' || p.radiusBasis.startsWith('not measured here')),
+  );
   const top = toes[0];
   return {
     caution: INDICATIVE_CAUTION,
@@ -192,6 +231,7 @@ export function rankToes(
           why: `highest effective factor ${fmt(top.range.max)} (${top.secondaryBending === 'tension' ? `secondary bending in tension, b = ${fmt(top.bendingRatio)}` : top.secondaryBending === 'compression' ? `despite secondary bending in compression, b = ${fmt(top.bendingRatio)}` : 'no secondary bending'})`,
         }
       : null,
-    note: bases.size > 1 ? 'the ranking mixes toes with measured radii and toes at the reference radius' : null,
+    note:
+      bases.size > 1 ? 'the ranking mixes toes with measured radii and toes at the reference radius' : null,
   };
 }

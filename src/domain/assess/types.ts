@@ -58,11 +58,21 @@ export interface MisalignmentAssessment {
   /** The largest km on any surface of the loaded plates, linear and angular combined at the same surface. */
   readonly kmCalc: number | null;
   readonly governingSurface: { readonly plate: 1 | 2; readonly surface: 'face' | 'root' } | null;
-  readonly kmCovered: { readonly value: number; readonly row: CoveredRow; readonly label: string; readonly source: string } | null;
+  readonly kmCovered: {
+    readonly value: number;
+    readonly row: CoveredRow;
+    readonly label: string;
+    readonly source: string;
+  } | null;
   /** km,calc / km,covered, never below 1. */
   readonly kmEff: number | null;
   /** The conventional DNV form as a second estimate (linear misalignment only). */
-  readonly dnv: { readonly scf: number; readonly formula: string; readonly source: string; readonly note: string } | null;
+  readonly dnv: {
+    readonly scf: number;
+    readonly formula: string;
+    readonly source: string;
+    readonly note: string;
+  } | null;
 }
 
 export interface EffectiveValue {
@@ -143,7 +153,11 @@ export interface FatigueAssessment {
   readonly loaded: boolean | null;
   readonly material: 'steel' | 'aluminium';
   readonly earned: { readonly details: readonly DetailId[]; readonly why: readonly string[] };
-  readonly designDetail: { readonly text: string; readonly id: DetailId | null; readonly note: string | null } | null;
+  readonly designDetail: {
+    readonly text: string;
+    readonly id: DetailId | null;
+    readonly note: string | null;
+  } | null;
   readonly override: { readonly detail: DetailId | null; readonly fat: number | null } | null;
   readonly details: readonly DetailUse[];
   readonly governing: DetailUse | null;

@@ -142,7 +142,8 @@ export const DETAILS: Readonly<Record<DetailId, FatigueDetail>> = {
   },
   '414': {
     id: '414',
-    title: 'cruciform or T joint, load-carrying fillet or partial-penetration welds, root crack, stress on the throat',
+    title:
+      'cruciform or T joint, load-carrying fillet or partial-penetration welds, root crack, stress on the throat',
     fat: { steel: 36, aluminium: 12 },
     covered: 'byJoint',
     thicknessExponent: 0,

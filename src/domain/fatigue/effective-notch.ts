@@ -10,9 +10,22 @@ export function notchReference(t: number, material: 'steel' | 'aluminium'): Notc
   if (t >= 5) {
     return material === 'steel'
       ? { radiusMm: 1, fat: 225, basis: 'r_ref = 1 mm (t ≥ 5 mm), FAT 225, steel, maximum principal stress' }
-      : { radiusMm: 1, fat: 71, basis: 'r_ref = 1 mm (t ≥ 5 mm), FAT 71, aluminium, principal stress (recalled, medium confidence)' };
+      : {
+          radiusMm: 1,
+          fat: 71,
+          basis: 'r_ref = 1 mm (t ≥ 5 mm), FAT 71, aluminium, principal stress (recalled, medium confidence)',
+        };
   }
   return material === 'steel'
-    ? { radiusMm: 0.05, fat: 630, basis: 'r_ref = 0.05 mm (t < 5 mm), FAT 630, steel, maximum principal stress' }
-    : { radiusMm: 0.05, fat: 180, basis: 'r_ref = 0.05 mm (t < 5 mm), FAT 180, aluminium, principal stress (recalled, medium confidence)' };
+    ? {
+        radiusMm: 0.05,
+        fat: 630,
+        basis: 'r_ref = 0.05 mm (t < 5 mm), FAT 630, steel, maximum principal stress',
+      }
+    : {
+        radiusMm: 0.05,
+        fat: 180,
+        basis:
+          'r_ref = 0.05 mm (t < 5 mm), FAT 180, aluminium, principal stress (recalled, medium confidence)',
+      };
 }

@@ -31,23 +31,34 @@ function butt(seam: Seam, m: MeasuredForClass): EarnedClass {
   }
   if (seam.joint.sides === 'one') {
     const backing = f?.backing;
-    if (backing === 'permanent') return { details: ['215'], why: ['welded from one side on a permanent backing bar'], assumptions };
-    if (backing === 'temporary') return { details: ['214'], why: ['welded from one side on temporary backing'], assumptions };
+    if (backing === 'permanent')
+      return { details: ['215'], why: ['welded from one side on a permanent backing bar'], assumptions };
+    if (backing === 'temporary')
+      return { details: ['214'], why: ['welded from one side on temporary backing'], assumptions };
     if (backing === undefined) assumptions.push('backing not recorded: taken as none');
-    if (f?.ndt === false) return { details: ['216-noNDT'], why: ['one side, no backing, root not checked by NDT'], assumptions };
+    if (f?.ndt === false)
+      return { details: ['216-noNDT'], why: ['one side, no backing, root not checked by NDT'], assumptions };
     if (ndtUnknown) {
-      assumptions.push('NDT of the root not recorded: taken as done (216, FAT 71); without it the class is 36 MPa');
+      assumptions.push(
+        'NDT of the root not recorded: taken as done (216, FAT 71); without it the class is 36 MPa',
+      );
     }
     return { details: ['216'], why: ['welded from one side without backing: the root governs'], assumptions };
   }
   if (f?.ndt === false) {
-    return { details: [], why: ['a two-sided butt weld without NDT has no class in the catalogue'], assumptions };
+    return {
+      details: [],
+      why: ['a two-sided butt weld without NDT has no class in the catalogue'],
+      assumptions,
+    };
   }
-  if (ndtUnknown) assumptions.push('NDT not recorded: the weld is taken as examined as classes 212/213 require');
+  if (ndtUnknown)
+    assumptions.push('NDT not recorded: the weld is taken as examined as classes 212/213 require');
   const fails: string[] = [];
   if (seam.joint.setting !== 'shopFlat') fails.push('not made in shop in flat position');
   if (!m.minToeAngle) fails.push('toe angle not measured, so a toe angle ≥ 150° cannot be shown');
-  else if (m.minToeAngle.value < 150) fails.push(`toe angle ${m.minToeAngle.value}° at ${m.minToeAngle.where} is below 150° (flank above 30°)`);
+  else if (m.minToeAngle.value < 150)
+    fails.push(`toe angle ${m.minToeAngle.value}° at ${m.minToeAngle.where} is below 150° (flank above 30°)`);
   if (!m.maxReinforcementRatio) fails.push('reinforcement height and width not measured');
   else if (m.maxReinforcementRatio.value > 0.1) {
     fails.push(
@@ -72,21 +83,41 @@ function fillet(seam: Seam): EarnedClass {
   const ground = seam.surface === 'toeGround';
   const assumptions: string[] = [];
   if (f?.loadCarrying === false) {
-    if (kButt || ground) return { details: ['511-ground'], why: [kButt ? 'non-load-carrying, K-butt' : 'non-load-carrying, toe ground'], assumptions };
+    if (kButt || ground)
+      return {
+        details: ['511-ground'],
+        why: [kButt ? 'non-load-carrying, K-butt' : 'non-load-carrying, toe ground'],
+        assumptions,
+      };
     if (seam.plate2.thickness > seam.plate1.thickness) {
-      return { details: ['511-thick'], why: ['non-load-carrying attachment thicker than the main plate'], assumptions };
+      return {
+        details: ['511-thick'],
+        why: ['non-load-carrying attachment thicker than the main plate'],
+        assumptions,
+      };
     }
     return { details: ['511'], why: ['non-load-carrying transverse attachment, as welded'], assumptions };
   }
-  if (f?.loadCarrying === undefined) assumptions.push('load-carrying not recorded: taken as load-carrying (the lower classes)');
-  if (kButt) return { details: [ground ? '411' : '412'], why: [`full-penetration K-butt${ground ? ', toes ground' : ', as welded'}`], assumptions };
-  return { details: ['413', '414'], why: ['fillet welds: toe crack (413) and root crack through the throat (414)'], assumptions };
+  if (f?.loadCarrying === undefined)
+    assumptions.push('load-carrying not recorded: taken as load-carrying (the lower classes)');
+  if (kButt)
+    return {
+      details: [ground ? '411' : '412'],
+      why: [`full-penetration K-butt${ground ? ', toes ground' : ', as welded'}`],
+      assumptions,
+    };
+  return {
+    details: ['413', '414'],
+    why: ['fillet welds: toe crack (413) and root crack through the throat (414)'],
+    assumptions,
+  };
 }
 
 /** The class the measured seam earns, and why. */
 export function earnedDetails(seam: Seam, m: MeasuredForClass): EarnedClass {
   if (seam.joint.type === 'butt') return butt(seam, m);
-  if (seam.joint.type === 'lap') return { details: [], why: ['lap joints are not in the catalogue'], assumptions: [] };
+  if (seam.joint.type === 'lap')
+    return { details: [], why: ['lap joints are not in the catalogue'], assumptions: [] };
   return fillet(seam);
 }
 

@@ -1,5 +1,6 @@
 /** The S-N curve shape of the IIW Recommendations, 2016 edition, for normal stress. */
-export const SN_EDITION = 'IIW Recommendations for Fatigue Design of Welded Joints and Components, 2016 edition';
+export const SN_EDITION =
+  'IIW Recommendations for Fatigue Design of Welded Joints and Components, 2016 edition';
 export const N_REF = 2e6;
 export const N_KNEE = 1e7;
 export const SLOPE = 3;

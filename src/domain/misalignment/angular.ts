@@ -27,7 +27,14 @@ export function straighteningFactor(beta: number, ends: Ends, compression: boole
 }
 
 // BS 7910 Annex D / IIW App. 6.3: km = 1 + λ·α·l1·l2/(t·(l1 + l2))·factor, λ = 3 clamped, 6 pinned (y = α·l/2 for equal arms).
-export function kmAngular(alphaRad: number, t: number, l1: number, l2: number, ends: Ends, factor = 1): number {
+export function kmAngular(
+  alphaRad: number,
+  t: number,
+  l1: number,
+  l2: number,
+  ends: Ends,
+  factor = 1,
+): number {
   const lambda = ends === 'clamped' ? 3 : 6;
   return 1 + ((lambda * Math.abs(alphaRad) * l1 * l2) / (t * (l1 + l2))) * factor;
 }

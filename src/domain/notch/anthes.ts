@@ -1,4 +1,4 @@
-import { outsideOf } from './range.js';
+import { insideOf, outsideOf, type Bound } from './range.js';
 
 const RAD = Math.PI / 180;
 
@@ -13,12 +13,16 @@ export function anthesButtBending(tOverRho: number, flankDeg: number): number {
 /** Validity of the butt formula as coded with its published coefficients: 0 < t/ρ ≤ 200, 0° ≤ φ ≤ 90°. */
 export const ANTHES_BUTT_RANGE = { tOverRho: [0, 200], flankDeg: [0, 90] } as const;
 
-export function anthesButtOutside(tOverRho: number, flankDeg: number): string[] {
-  return outsideOf([
-    { name: 't/ρ', value: tOverRho, min: 0, max: 200, minExclusive: true },
-    { name: 'flank angle φ (°)', value: flankDeg, min: 0, max: 90 },
-  ]);
-}
+const buttBounds = (tOverRho: number, flankDeg: number): Bound[] => [
+  { name: 't/ρ', value: tOverRho, min: 0, max: 200, minExclusive: true },
+  { name: 'flank angle φ (°)', value: flankDeg, min: 0, max: 90 },
+];
+
+export const anthesButtInside = (tOverRho: number, flankDeg: number): boolean =>
+  insideOf(buttBounds(tOverRho, flankDeg));
+
+export const anthesButtOutside = (tOverRho: number, flankDeg: number): string[] =>
+  outsideOf(buttBounds(tOverRho, flankDeg));
 
 // Anthes, Köttgen & Seeger, Schweißen und Schneiden 45 (1993) 685–688: cruciform ("Doppel-T-Stoß"), bending; sin of φ.
 export function anthesCruciformBending(
@@ -28,28 +32,29 @@ export function anthesCruciformBending(
   sOverT: number,
 ): number {
   const s = Math.sin(flankDeg * RAD);
-  const bracket = 1 + 0.023 * aOverT ** -3.09 * sOverT ** 2.412 + 2.153 * tOverRho ** 0.154 - 3.738 * s ** 0.481;
+  const bracket =
+    1 + 0.023 * aOverT ** -3.09 * sOverT ** 2.412 + 2.153 * tOverRho ** 0.154 - 3.738 * s ** 0.481;
   return 1.256 + bracket * s ** 1.723 * tOverRho ** 0.172;
 }
 
 /** Validity of the cruciform formula: 30° ≤ φ ≤ 60°, 15 ≤ t/ρ ≤ 100, 0.3 ≤ a/t ≤ 1, s/t = 0 or 2ρ/t ≤ s/t ≤ 1. */
 export const ANTHES_CRUCIFORM_RANGE = { tOverRho: [15, 100], flankDeg: [30, 60], aOverT: [0.3, 1] } as const;
 
-export function anthesCruciformOutside(
-  tOverRho: number,
-  flankDeg: number,
-  aOverT: number,
-  sOverT: number,
-): string[] {
-  const out = outsideOf([
-    { name: 't/ρ', value: tOverRho, min: 15, max: 100 },
-    { name: 'flank angle φ (°)', value: flankDeg, min: 30, max: 60 },
-    { name: 'a/t', value: aOverT, min: 0.3, max: 1 },
-  ]);
-  if (sOverT !== 0) {
-    out.push(
-      ...outsideOf([{ name: 's/t', value: sOverT, min: 2 / tOverRho, max: 1 }]).map((m) => `${m} (or s/t = 0)`),
-    );
-  }
-  return out;
+const cruciformBounds = (tOverRho: number, flankDeg: number, aOverT: number): Bound[] => [
+  { name: 't/ρ', value: tOverRho, min: 15, max: 100 },
+  { name: 'flank angle φ (°)', value: flankDeg, min: 30, max: 60 },
+  { name: 'a/t', value: aOverT, min: 0.3, max: 1 },
+];
+
+const rootGapBounds = (tOverRho: number, sOverT: number): Bound[] =>
+  sOverT === 0 ? [] : [{ name: 's/t', value: sOverT, min: 2 / tOverRho, max: 1 }];
+
+export const anthesCruciformInside = (tOverRho: number, flankDeg: number, aOverT: number, sOverT: number): boolean =>
+  insideOf(cruciformBounds(tOverRho, flankDeg, aOverT)) && insideOf(rootGapBounds(tOverRho, sOverT));
+
+export function anthesCruciformOutside(tOverRho: number, flankDeg: number, aOverT: number, sOverT: number): string[] {
+  return [
+    ...outsideOf(cruciformBounds(tOverRho, flankDeg, aOverT)),
+    ...outsideOf(rootGapBounds(tOverRho, sOverT)).map((m) => `${m} (or s/t = 0)`),
+  ];
 }

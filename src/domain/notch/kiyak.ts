@@ -1,4 +1,4 @@
-import { outsideOf } from './range.js';
+import { insideOf, outsideOf, type Bound } from './range.js';
 
 const RAD = Math.PI / 180;
 
@@ -17,14 +17,28 @@ export function kiyakButtBending(flankDeg: number, h: number, T: number, rho: nu
 }
 
 /** Validity as coded with the published coefficients: 10° ≤ α ≤ 60°, 0.01 ≤ ρ/T ≤ 0.4. */
-export const KIYAK_RANGE = { flankDeg: [10, 60], rhoOverT: [0.01, 0.4], checkedHOverT: [0.016, 0.37] } as const;
+export const KIYAK_RANGE = {
+  flankDeg: [10, 60],
+  rhoOverT: [0.01, 0.4],
+  checkedHOverT: [0.016, 0.37],
+} as const;
 
-export function kiyakOutside(flankDeg: number, h: number, T: number, rho: number): string[] {
-  return outsideOf([
-    { name: 'flank angle α (°)', value: flankDeg, min: 10, max: 60 },
-    { name: 'ρ/T', value: rho / T, min: 0.01, max: 0.4 },
-    { name: 'h/T', value: h / T, min: 0, max: Infinity, minExclusive: true },
-  ]);
+const bounds = (flankDeg: number, h: number, T: number, rho: number): Bound[] => [
+  { name: 'flank angle α (°)', value: flankDeg, min: 10, max: 60 },
+  { name: 'ρ/T', value: rho / T, min: 0.01, max: 0.4 },
+  { name: 'h/T', value: h / T, min: 0, max: Number.MAX_VALUE, minExclusive: true },
+];
+
+export const kiyakInside = (flankDeg: number, h: number, T: number, rho: number): boolean =>
+  insideOf(bounds(flankDeg, h, T, rho));
+
+export const kiyakOutside = (flankDeg: number, h: number, T: number, rho: number): string[] =>
+  outsideOf(bounds(flankDeg, h, T, rho));
+
+// Derived from the Kiyak form: d ln(Kt − 1)/dα = 0 at α* = 1.067/(1.6775 − 0.2062·ln(h/T) + 0.295·ln(ρ/T)), in degrees.
+export function kiyakPeakFlank(h: number, T: number, rho: number): number {
+  const d = 1.6775 - 0.2062 * Math.log(h / T) + 0.295 * Math.log(rho / T);
+  return d > 0 ? (1.067 / d) / RAD : Infinity;
 }
 
 /** The h/T range the formula was checked over is narrower than the inputs it accepts: say so, but do not refuse. */
@@ -32,6 +46,8 @@ export function kiyakNotes(h: number, T: number): string[] {
   const r = h / T;
   const [lo, hi] = KIYAK_RANGE.checkedHOverT;
   return r < lo || r > hi
-    ? [`h/T = ${Number(r.toPrecision(3))} lies outside the ${lo}–${hi} the formula was checked over (no stated range)`]
+    ? [
+        `h/T = ${Number(r.toPrecision(3))} lies outside the ${lo}–${hi} the formula was checked over (no stated range)`,
+      ]
     : [];
 }

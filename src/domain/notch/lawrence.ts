@@ -1,4 +1,4 @@
-import { outsideOf } from './range.js';
+import { insideOf, outsideOf, type Bound } from './range.js';
 
 const RAD = Math.PI / 180;
 
@@ -11,9 +11,12 @@ export function lawrenceTension(alphaL: number, flankDeg: number, t: number, rho
 }
 
 /** The formula states no validity range; θ must lie in 0° ≤ θ < 90° for tan θ to mean a flank. */
-export function lawrenceOutside(flankDeg: number, t: number, rho: number): string[] {
-  return outsideOf([
-    { name: 'flank angle θ (°)', value: flankDeg, min: 0, max: 89.999 },
-    { name: 't/ρ', value: t / rho, min: 0, max: Infinity, minExclusive: true },
-  ]);
-}
+const bounds = (flankDeg: number, t: number, rho: number): Bound[] => [
+  { name: 'flank angle θ (°)', value: flankDeg, min: 0, max: 89.999 },
+  { name: 't/ρ', value: t / rho, min: 0, max: Number.MAX_VALUE, minExclusive: true },
+];
+
+export const lawrenceInside = (flankDeg: number, t: number, rho: number): boolean => insideOf(bounds(flankDeg, t, rho));
+
+export const lawrenceOutside = (flankDeg: number, t: number, rho: number): string[] =>
+  outsideOf(bounds(flankDeg, t, rho));

@@ -9,11 +9,19 @@ export interface Bound {
 
 const fmt = (x: number): string => String(Number(x.toPrecision(4)));
 
+const isOutside = (b: Bound): boolean =>
+  (b.minExclusive ? b.value <= b.min : b.value < b.min) || b.value > b.max || !Number.isFinite(b.value);
+
+/** True when every input lies inside its range (the same test as outsideOf, without the messages). */
+export function insideOf(bounds: readonly Bound[]): boolean {
+  for (const b of bounds) if (isOutside(b)) return false;
+  return true;
+}
+
 export function outsideOf(bounds: readonly Bound[]): string[] {
   const out: string[] = [];
   for (const b of bounds) {
-    const low = b.minExclusive ? b.value <= b.min : b.value < b.min;
-    if (low || b.value > b.max || !Number.isFinite(b.value)) {
+    if (isOutside(b)) {
       const lo = b.minExclusive ? `> ${fmt(b.min)}` : `${fmt(b.min)}`;
       out.push(`${b.name} = ${fmt(b.value)} lies outside ${lo} … ${fmt(b.max)}`);
     }

@@ -1,7 +1,14 @@
-import { anthesButtBending, anthesButtOutside, anthesCruciformBending, anthesCruciformOutside } from './anthes.js';
+import {
+  anthesButtBending,
+  anthesButtInside,
+  anthesButtOutside,
+  anthesCruciformBending,
+  anthesCruciformInside,
+  anthesCruciformOutside,
+} from './anthes.js';
 import { envelope } from './envelope.js';
-import { kiyakButtBending, kiyakNotes, kiyakOutside } from './kiyak.js';
-import { LAWRENCE_ALPHA, lawrenceOutside, lawrenceTension } from './lawrence.js';
+import { kiyakButtBending, kiyakInside, kiyakNotes, kiyakOutside, kiyakPeakFlank } from './kiyak.js';
+import { LAWRENCE_ALPHA, lawrenceInside, lawrenceOutside, lawrenceTension } from './lawrence.js';
 import type { FormulaValue, NotchFormulaId, ToeGeometry } from './types.js';
 
 export type NotchJoint = 'butt' | 'fillet';
@@ -25,115 +32,152 @@ export const NOTCH_SOURCES: Readonly<Record<NotchFormulaId, string>> = {
   lawrenceTension: 'Yung & Lawrence 1985 / Lawrence et al. 1981, tension (α_L recalled)',
 };
 
-const fmt = (x: number): string => String(Number(x.toPrecision(5)));
+/** One formula's numbers for one toe, without any text: what ranking and sensitivity need, cheaply. */
+export interface FormulaNumber {
+  readonly formula: NotchFormulaId;
+  /** The value used (the monotone envelope where the fit turns over). */
+  readonly value: number;
+  readonly raw: number;
+  readonly inRange: boolean;
+  /** Where the envelope's value was taken, when it differs from the measured point. */
+  readonly peakFlank: number | null;
+  readonly peakRatio: number | null;
+}
 
-function enveloped(
+export interface NotchNumbers {
+  readonly bending: readonly FormulaNumber[];
+  readonly tension: FormulaNumber;
+}
+
+/** With s = 0 the a/t term vanishes: the throat only decides whether the case lies in the fitted range. */
+const aOverTOf = (g: ToeGeometry): number => (g.a === undefined ? 0.5 : g.a / g.t);
+
+function numeric(
   formula: NotchFormulaId,
   raw: number,
-  outside: readonly string[],
-  notes: string[],
-  f: ((ratio: number, flank: number) => number) | null,
-  ratioLo: number,
-  ratio: number,
-  flankLo: number,
-  flank: number,
-): FormulaValue {
-  let value = raw;
-  if (f && !outside.length) {
-    const env = envelope(f, ratioLo, ratio, flankLo, flank);
-    if (env.value > raw) {
-      value = env.value;
-      // Differences far below any measurement's effect are used but not worth a line of text.
-      if (env.value > raw * (1 + 1e-5)) notes.push(
-        `the fitted formula falls again here (${fmt(raw)}); its largest value for a flank up to the measured one and t/ρ up to the measured one, ${fmt(env.value)} at θ = ${fmt(env.flankAt)}° and t/ρ = ${fmt(env.ratioAt)}, is used`,
-      );
-    }
+  inRange: boolean,
+  env: { value: number; flankAt: number; ratioAt: number } | null,
+): FormulaNumber {
+  if (env && env.value > raw) {
+    return { formula, value: env.value, raw, inRange, peakFlank: env.flankAt, peakRatio: env.ratioAt };
+  }
+  return { formula, value: raw, raw, inRange, peakFlank: null, peakRatio: null };
+}
+
+function anthesButt(g: ToeGeometry): FormulaNumber {
+  const ratio = g.t / g.rho;
+  const raw = anthesButtBending(ratio, g.flankDeg);
+  const inRange = anthesButtInside(ratio, g.flankDeg);
+  return numeric('anthesButtBending', raw, inRange, inRange ? envelope(anthesButtBending, 1e-3, ratio, 0, g.flankDeg) : null);
+}
+
+function kiyak(g: ToeGeometry, h: number): FormulaNumber {
+  const raw = kiyakButtBending(g.flankDeg, h, g.t, g.rho);
+  const inRange = kiyakInside(g.flankDeg, h, g.t, g.rho);
+  if (!inRange) return numeric('kiyakButtBending', raw, false, null);
+  // The fit falls with ρ everywhere, and past one flank angle, known in closed form.
+  const peak = Math.max(10, kiyakPeakFlank(h, g.t, g.rho));
+  if (g.flankDeg <= peak) return numeric('kiyakButtBending', raw, true, null);
+  return numeric('kiyakButtBending', raw, true, {
+    value: kiyakButtBending(peak, h, g.t, g.rho),
+    flankAt: peak,
+    ratioAt: g.t / g.rho,
+  });
+}
+
+function anthesCruciform(g: ToeGeometry): FormulaNumber {
+  const ratio = g.t / g.rho;
+  const aOverT = aOverTOf(g);
+  const f = (r: number, th: number): number => anthesCruciformBending(r, th, aOverT, 0);
+  const raw = f(ratio, g.flankDeg);
+  const inRange = anthesCruciformInside(ratio, g.flankDeg, aOverT, 0);
+  return numeric('anthesCruciformBending', raw, inRange, inRange ? envelope(f, 15, ratio, 30, g.flankDeg) : null);
+}
+
+const alphaOf = (joint: NotchJoint): number => (joint === 'butt' ? LAWRENCE_ALPHA.butt : LAWRENCE_ALPHA.fillet);
+
+/** Every applicable formula's number for one toe (no text). Angles in degrees (flank θ), lengths in mm. */
+export function notchNumbers(joint: NotchJoint, g: ToeGeometry): NotchNumbers {
+  const bending =
+    joint === 'butt' ? (g.h === undefined ? [anthesButt(g)] : [anthesButt(g), kiyak(g, g.h)]) : [anthesCruciform(g)];
+  // Lawrence rises with θ (tan) and with t/ρ (square root) everywhere: no envelope needed.
+  const law = lawrenceTension(alphaOf(joint), g.flankDeg, g.t, g.rho);
+  return { bending, tension: numeric('lawrenceTension', law, lawrenceInside(g.flankDeg, g.t, g.rho), null) };
+}
+
+/**
+ * The toe's effective factor against the nominal membrane stress, Kt,m + Kt,b·b, per bending formula, where b
+ * is the signed secondary-bending ratio at the toe's surface (b = s·(km − 1)).
+ */
+export function effectiveNumbers(n: NotchNumbers, b: number): { values: number[]; inRange: boolean[] } {
+  const values: number[] = [];
+  const inRange: boolean[] = [];
+  for (const bend of n.bending) {
+    values.push(n.tension.value + bend.value * b);
+    inRange.push(n.tension.inRange && bend.inRange);
+  }
+  return { values, inRange };
+}
+
+/** The upper end of the toe's effective-factor range (see rangeOf), without building any objects. */
+export function effectiveMax(n: NotchNumbers, b: number): number {
+  let inside = -Infinity;
+  let all = -Infinity;
+  for (const bend of n.bending) {
+    const v = n.tension.value + bend.value * b;
+    all = Math.max(all, v);
+    if (n.tension.inRange && bend.inRange) inside = Math.max(inside, v);
+  }
+  return inside > -Infinity ? inside : all;
+}
+
+const fmt = (x: number): string => String(Number(x.toPrecision(5)));
+
+function described(x: FormulaNumber, outside: readonly string[], notes: string[]): FormulaValue {
+  // Differences far below any measurement's effect are used but not worth a line of text.
+  if (x.peakFlank !== null && x.value > x.raw * (1 + 1e-5)) {
+    notes.push(
+      `the fitted formula falls again here (${fmt(x.raw)}); its largest value for a flank up to the measured one and t/ρ up to the measured one, ${fmt(x.value)} at θ = ${fmt(x.peakFlank)}° and t/ρ = ${fmt(x.peakRatio ?? NaN)}, is used`,
+    );
   }
   return {
-    formula,
-    load: formula === 'lawrenceTension' ? 'tension' : 'bending',
-    source: NOTCH_SOURCES[formula],
-    confidence: formula === 'lawrenceTension' ? 'recalled, unverified' : 'checked against public FE data',
-    value,
-    formulaValue: raw,
-    inRange: outside.length === 0,
+    formula: x.formula,
+    load: x.formula === 'lawrenceTension' ? 'tension' : 'bending',
+    source: NOTCH_SOURCES[x.formula],
+    confidence: x.formula === 'lawrenceTension' ? 'recalled, unverified' : 'checked against public FE data',
+    value: x.value,
+    formulaValue: x.raw,
+    inRange: x.inRange,
     outside,
     notes,
   };
 }
 
-function butt(g: ToeGeometry, unavailable: Unavailable[]): FormulaValue[] {
-  const ratio = g.t / g.rho;
-  const out: FormulaValue[] = [
-    enveloped(
-      'anthesButtBending',
-      anthesButtBending(ratio, g.flankDeg),
-      anthesButtOutside(ratio, g.flankDeg),
-      [],
-      anthesButtBending,
-      1e-3,
-      ratio,
-      0,
-      g.flankDeg,
-    ),
-  ];
-  if (g.h === undefined) {
-    unavailable.push({ formula: 'kiyakButtBending', reason: 'needs the reinforcement height h on the toe’s side' });
-  } else {
-    const h = g.h;
-    const kiyak = (r: number, th: number): number => kiyakButtBending(th, h, g.t, g.t / r);
-    out.push(
-      enveloped(
-        'kiyakButtBending',
-        kiyakButtBending(g.flankDeg, h, g.t, g.rho),
-        kiyakOutside(g.flankDeg, h, g.t, g.rho),
-        kiyakNotes(h, g.t),
-        kiyak,
-        2.5,
-        ratio,
-        10,
-        g.flankDeg,
-      ),
-    );
-  }
-  return out;
-}
-
-function fillet(g: ToeGeometry): FormulaValue[] {
-  const ratio = g.t / g.rho;
-  const notes: string[] = [];
-  // With s = 0 the a/t term vanishes, so the throat only decides whether the case lies in the fitted range.
-  const aOverT = g.a === undefined ? 0.5 : g.a / g.t;
-  const outside = anthesCruciformOutside(ratio, g.flankDeg, aOverT, 0);
-  if (g.a === undefined) notes.push('throat a unknown: the a/t range (0.3–1) was not checked; a has no effect with s = 0');
-  if (g.convexity !== undefined && g.convexity < 0.05) {
-    notes.push('flat or concave face (convexity < 0.05 mm): this formula reads about 10 % high against FE there');
-  }
-  const f = (r: number, th: number): number => anthesCruciformBending(r, th, aOverT, 0);
-  return [enveloped('anthesCruciformBending', f(ratio, g.flankDeg), outside, notes, f, 15, ratio, 30, g.flankDeg)];
-}
-
-/** Every applicable notch formula for one toe. Angles in degrees (flank θ), lengths in mm. */
+/** Every applicable notch formula for one toe, with its validity messages and notes. */
 export function toeNotchFactors(joint: NotchJoint, g: ToeGeometry): ToeNotch {
+  const n = notchNumbers(joint, g);
+  const ratio = g.t / g.rho;
   const unavailable: Unavailable[] = [];
-  const bending = joint === 'butt' ? butt(g, unavailable) : fillet(g);
-  const alphaL = joint === 'butt' ? LAWRENCE_ALPHA.butt : LAWRENCE_ALPHA.fillet;
+  const bending = n.bending.map((x) => {
+    if (x.formula === 'anthesButtBending') return described(x, anthesButtOutside(ratio, g.flankDeg), []);
+    if (x.formula === 'kiyakButtBending') {
+      const h = g.h as number;
+      return described(x, kiyakOutside(g.flankDeg, h, g.t, g.rho), kiyakNotes(h, g.t));
+    }
+    const notes: string[] = [];
+    if (g.a === undefined) notes.push('throat a unknown: the a/t range (0.3–1) was not checked; a has no effect with s = 0');
+    if (g.convexity !== undefined && g.convexity < 0.05) {
+      notes.push('flat or concave face (convexity < 0.05 mm): this formula reads about 10 % high against FE there');
+    }
+    return described(x, anthesCruciformOutside(ratio, g.flankDeg, aOverTOf(g), 0), notes);
+  });
+  if (joint === 'butt' && g.h === undefined) {
+    unavailable.push({ formula: 'kiyakButtBending', reason: 'needs the reinforcement height h on the toe’s side' });
+  }
+  const alphaL = alphaOf(joint);
   const lawNotes = [`α_L = ${alphaL} (${joint === 'butt' ? 'butt weld' : 'T or transverse fillet'}, axial; recalled)`];
   if (joint === 'fillet') lawNotes.push('α_L of the non-load-carrying T joint used');
-  const tension = [
-    enveloped(
-      'lawrenceTension',
-      lawrenceTension(alphaL, g.flankDeg, g.t, g.rho),
-      lawrenceOutside(g.flankDeg, g.t, g.rho),
-      lawNotes,
-      // Rises with θ (tan) and with t/ρ (square root) everywhere: no envelope needed.
-      null,
-      1e-3,
-      g.t / g.rho,
-      0,
-      g.flankDeg,
-    ),
-  ];
+  const tension = [described(n.tension, lawrenceOutside(g.flankDeg, g.t, g.rho), lawNotes)];
   return { bending, tension, unavailable };
 }
 
@@ -152,10 +196,7 @@ export function rangeOf(values: readonly number[], inRange: readonly boolean[]):
   return { min: Math.min(...used), max: Math.max(...used), extrapolated: inside.length === 0 };
 }
 
-/**
- * The toe's effective factor against the nominal membrane stress, Kt,m + Kt,b·b, where b is the signed
- * secondary-bending ratio at the toe's surface (b = s·(km − 1)); one value per bending formula.
- */
+/** Kt,m + Kt,b·b per bending formula of a described toe (the same numbers as effectiveNumbers). */
 export function effectiveFactors(n: ToeNotch, b: number): { values: number[]; inRange: boolean[] } {
   const tension = n.tension[0];
   const values: number[] = [];
@@ -164,10 +205,6 @@ export function effectiveFactors(n: ToeNotch, b: number): { values: number[]; in
   for (const bend of n.bending) {
     values.push(tension.value + bend.value * b);
     inRange.push(tension.inRange && bend.inRange);
-  }
-  if (!n.bending.length && b === 0) {
-    values.push(tension.value);
-    inRange.push(tension.inRange);
   }
   return { values, inRange };
 }

@@ -1,9 +1,6 @@
 /** The formulas the toe-factor estimate draws on; each has its own source, load case and validity range. */
 export type NotchFormulaId =
-  | 'anthesButtBending'
-  | 'kiyakButtBending'
-  | 'anthesCruciformBending'
-  | 'lawrenceTension';
+  'anthesButtBending' | 'kiyakButtBending' | 'anthesCruciformBending' | 'lawrenceTension';
 
 export type NotchLoad = 'bending' | 'tension';
 

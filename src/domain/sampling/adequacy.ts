@@ -94,7 +94,8 @@ function riskOf(input: AdequacyInput, ordered: readonly SamplePoint[]): Risk | {
   const one = predictiveBelow(0, m.mean, m.sd, m.n);
   const pitch = pitchOf(ordered.map((p) => p.position));
   const distinct = new Set(ordered.map((p) => p.position)).size;
-  const slots = pitch && pitch > 0 ? Math.floor(input.seamLength / pitch) + (input.circumferential ? 0 : 1) : distinct;
+  const slots =
+    pitch && pitch > 0 ? Math.floor(input.seamLength / pitch) + (input.circumferential ? 0 : 1) : distinct;
   const unmeasured = Math.max(0, slots - distinct);
   return {
     distribution:
@@ -111,7 +112,9 @@ function riskOf(input: AdequacyInput, ordered: readonly SamplePoint[]): Risk | {
 
 /** Sampling adequacy of one measured parameter at one place on the seam, from its at-pitch readings. */
 export function adequacyOf(input: AdequacyInput): Adequacy {
-  const ordered = [...input.points].sort((a, b) => a.position - b.position || (a.readingId < b.readingId ? -1 : 1));
+  const ordered = [...input.points].sort(
+    (a, b) => a.position - b.position || (a.readingId < b.readingId ? -1 : 1),
+  );
   const values = ordered.map((p) => p.value);
   const stats = meanAndSd(values);
   const resolutions = ordered.map((p) => p.resolution).filter((r): r is number => r !== null);
@@ -120,7 +123,10 @@ export function adequacyOf(input: AdequacyInput): Adequacy {
       ? { value: input.target, basis: 'asked for' }
       : resolutions.length
         ? { value: Math.max(...resolutions), basis: 'instrument resolution' }
-        : { value: input.defaultResolution, basis: 'default resolution (instrument resolution not recorded)' };
+        : {
+            value: input.defaultResolution,
+            basis: 'default resolution (instrument resolution not recorded)',
+          };
   const half = stats.n >= 2 ? confidenceHalfWidth(stats.sd, stats.n) : null;
   const means = runningMeans(values);
   const settle = stats.n ? settling(means, target.value) : { after: 0, settled: false };
@@ -130,14 +136,22 @@ export function adequacyOf(input: AdequacyInput): Adequacy {
   const u = input.unit === 'deg' ? '°' : ' mm';
   const parts: string[] = [];
   if (stats.n < 2) {
-    parts.push(`${input.label}: ${stats.n} at-pitch position; measure at least ${2 - stats.n} more to estimate the scatter`);
+    parts.push(
+      `${input.label}: ${stats.n} at-pitch position; measure at least ${2 - stats.n} more to estimate the scatter`,
+    );
   } else {
     parts.push(
       `${input.label}: ${stats.n} positions, mean ${fmt(stats.mean)}${u}, 95 % interval ±${fmt(half as number, 2)}${u}`,
     );
-    if (more === null) parts.push(`the scatter is too large to bring the interval within ±${fmt(target.value)}${u} by measuring more`);
+    if (more === null)
+      parts.push(
+        `the scatter is too large to bring the interval within ±${fmt(target.value)}${u} by measuring more`,
+      );
     else if (more === 0) parts.push(`within ±${fmt(target.value)}${u}: enough positions`);
-    else parts.push(`measure about ${more} more position${more === 1 ? '' : 's'} to bring it within ±${fmt(target.value)}${u}`);
+    else
+      parts.push(
+        `measure about ${more} more position${more === 1 ? '' : 's'} to bring it within ±${fmt(target.value)}${u}`,
+      );
     if (!settle.settled) parts.push('the running mean has not settled yet');
   }
   if ('onePosition' in risk) {

@@ -71,7 +71,10 @@ export function runningMeans(xs: readonly number[]): number[] {
  * The number of positions after which the running mean stayed within ±band of the final mean for good; the
  * mean has settled when that happened at least max(3, ⌈n/4⌉) positions before the end.
  */
-export function settling(means: readonly number[], band: number): { readonly after: number; readonly settled: boolean } {
+export function settling(
+  means: readonly number[],
+  band: number,
+): { readonly after: number; readonly settled: boolean } {
   const n = means.length;
   const final = means[n - 1] ?? NaN;
   let after = n;

@@ -56,13 +56,16 @@ export function ReadingGradeView(props: {
                   {g.borderline || isUnverified(g) ? (
                     <p class="gauge-markers">
                       {g.borderline ? (
-                        <span class="gauge-marker">
-                          ≈ borderline: within the gauge's resolution of the limit — measure again or with a
-                          finer gauge
+                        <span>
+                          <span class="mark mark-borderline">≈ borderline</span> within the gauge's resolution
+                          of the limit: measure again, or with a finer gauge
                         </span>
                       ) : null}
                       {isUnverified(g) ? (
-                        <span class="gauge-marker">? unverified: a limit here rests on recalled values</span>
+                        <span>
+                          <span class="mark mark-unverified">? unverified</span> a limit in play rests on
+                          recalled values
+                        </span>
                       ) : null}
                     </p>
                   ) : null}
