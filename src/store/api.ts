@@ -144,7 +144,11 @@ export interface Store {
     item: ChecklistItem,
     answer: ChecklistAnswer,
   ): Promise<RoundRecord>;
-  listReadings(seamId: string): Promise<ReadingRecord[]>;
+  /**
+   * One seam's readings in order of entry on this device; with `afterLocalSeq`, only those entered after it (a
+   * screen that holds the earlier ones reads just what is new).
+   */
+  listReadings(seamId: string, afterLocalSeq?: number): Promise<ReadingRecord[]>;
   /** Append-only: a reading id that exists already is refused. Corrections and withdrawals are new readings. */
   appendReading(seamId: string, reading: Reading): Promise<ReadingRecord>;
   /** The seam with its rounds and readings, as the grader takes it (readings may be empty). */

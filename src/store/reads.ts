@@ -15,9 +15,15 @@ export const getSeam = (ctx: StoreContext, id: string): Promise<SeamRecord | und
 export const listRounds = (ctx: StoreContext, seamId: string): Promise<RoundRecord[]> =>
   ctx.conn.run(['rounds'], 'readonly', (tx) => tx.store.getAll(seamKeyRange(seamId)));
 
-/** One seam's readings in order of entry on this device. */
-export const listReadings = (ctx: StoreContext, seamId: string): Promise<ReadingRecord[]> =>
-  ctx.conn.run(['readings'], 'readonly', (tx) => tx.store.index('bySeamSeq').getAll(seamKeyRange(seamId)));
+/** One seam's readings in order of entry on this device; with `afterLocalSeq`, those entered after it. */
+export const listReadings = (
+  ctx: StoreContext,
+  seamId: string,
+  afterLocalSeq?: number,
+): Promise<ReadingRecord[]> =>
+  ctx.conn.run(['readings'], 'readonly', (tx) =>
+    tx.store.index('bySeamSeq').getAll(seamKeyRange(seamId, afterLocalSeq)),
+  );
 
 export async function seamFile(ctx: StoreContext, seamId: string): Promise<SeamFile | undefined> {
   const parts = await ctx.conn.run(['seams', 'rounds', 'readings'], 'readonly', async (tx) => ({

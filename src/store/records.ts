@@ -81,6 +81,11 @@ export function toSeamFile(
   };
 }
 
-/** Key ranges covering one seam's rounds ([seamId, number]) or its readings in order ([seamId, localSeq]). */
-export const seamKeyRange = (seamId: string): IDBKeyRange =>
-  IDBKeyRange.bound([seamId, -Infinity], [seamId, Infinity]);
+/**
+ * Key ranges covering one seam's rounds ([seamId, number]) or its readings in order ([seamId, localSeq]); with
+ * `after`, only the keys whose second part is greater.
+ */
+export const seamKeyRange = (seamId: string, after?: number): IDBKeyRange =>
+  after === undefined
+    ? IDBKeyRange.bound([seamId, -Infinity], [seamId, Infinity])
+    : IDBKeyRange.bound([seamId, after], [seamId, Infinity], true, false);

@@ -88,7 +88,7 @@ function NoRound({
 
 /** Gauge: reading entry at the seam, organised around the instrument in the inspector's hand. */
 export default function GaugeScreen({ id }: { readonly id: string }) {
-  const { state, reload } = useSeamData(id);
+  const { state, reload, refresh } = useSeamData(id);
   const back = hrefOf({ name: 'seam', id });
   if (state.status === 'loading') return <p aria-busy="true">Loading the seam…</p>;
   if (state.status === 'missing') {
@@ -129,7 +129,7 @@ export default function GaugeScreen({ id }: { readonly id: string }) {
         </p>
       </header>
       {data.file.rounds.length ? (
-        <GaugeEntry key={data.record.id} data={data} reload={reload} />
+        <GaugeEntry key={data.record.id} data={data} refresh={refresh} />
       ) : (
         <NoRound data={data} reload={reload} />
       )}

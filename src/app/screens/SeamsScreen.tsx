@@ -5,7 +5,7 @@ import { requiredLevelOf } from '../components/required-level.js';
 import { matchesSearch, sortSeams } from '../components/seam-search.js';
 import { needsRegrade, regradeOrder, sameSummary, summaryFromGrade } from '../components/summary.js';
 import { hrefOf } from '../router.js';
-import { gradeInWorker } from '../services/grading.js';
+import { entryCheckWorker } from '../services/entry-check.js';
 import { getStore } from '../services/store.js';
 
 type Load =
@@ -28,9 +28,10 @@ async function refreshSummaries(
     if (!alive()) return;
     const file = await store.seamFile(rec.id);
     if (!file) continue;
-    const reply = await gradeInWorker(file);
+    // The standing alone (no grade per reading): the page receives a few hundred bytes however long the seam is.
+    const reply = await entryCheckWorker().standing(file);
     if (!reply.ok) continue;
-    const summary = summaryFromGrade(reply.grade, new Date().toISOString());
+    const summary = summaryFromGrade(reply.standing, new Date().toISOString());
     if (sameSummary(rec.summary, summary) && !needsRegrade(rec)) continue;
     await store.setSummary(rec.id, summary);
     onUpdated({ ...rec, summary });

@@ -1,6 +1,7 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import type { ImportReport } from '../../store/api.js';
 import { Caution } from '../components/Caution.js';
+import { ExaminerSettings } from '../components/ExaminerSettings.js';
 // Version, offline readiness and storage protection (with the button to ask the browser to keep the data).
 import { AboutPanel } from '../pwa/AboutPanel.js';
 import { InstallHint } from '../pwa/InstallHint.js';
@@ -187,6 +188,9 @@ export default function SettingsScreen() {
   return (
     <section class="settings" aria-labelledby="settings-title">
       <h1 id="settings-title">Settings</h1>
+      <div class="panel">
+        <ExaminerSettings />
+      </div>
       <InstallHint />
       <AboutPanel />
       <div class="panel">

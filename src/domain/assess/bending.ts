@@ -107,47 +107,49 @@ export interface AngularDelta {
 }
 
 /** km − 1 from a kink |α| (degrees) on a plate, or why it cannot be given. */
+const LONG_ARMS = 'long-arm limit 1 + 1.5·α/√(3σm/E) (free lengths unknown: the upper bound over l)';
+const NO_ARMS = 'needs the free lengths (fatigue.freeLength1/2), or a tensile membrane stress';
+const BUCKLED = 'the compressive membrane stress reaches the elastic buckling load of the kinked arm';
+
+/** The straightening (or amplification) factor the seam's set-up gives an arm of plate thickness t; NaN past buckling. */
+function angularFactor(setup: Setup, t: number): number {
+  const { sigmaM } = setup;
+  if (sigmaM === null || sigmaM === 0 || (sigmaM < 0 && setup.compression === 'noRelief')) return 1;
+  // Unequal arms: β from the shorter arm, which relieves least (conservative).
+  const beta = straighteningBeta(Math.min(setup.l1, setup.l2), t, sigmaM, setup.E);
+  const f = straighteningFactor(beta, setup.restraint, sigmaM < 0);
+  return Number.isFinite(f) ? f : NaN;
+}
+
+/** km − 1 from a kink |α| (degrees) on a plate; NaN when it cannot be given (see deltaAngular for why). */
+export function angularDelta(setup: Setup, plate: 1 | 2, absAlphaDeg: number): number {
+  const t = setup.family === 'butt' ? plateT(setup, plate) : setup.t1;
+  const alpha = absAlphaDeg * RAD;
+  const { sigmaM, E } = setup;
+  if (!setup.armsKnown) return sigmaM !== null && sigmaM > 0 ? kmAngularLongArms(alpha, sigmaM, E) - 1 : NaN;
+  const factor = angularFactor(setup, t);
+  return Number.isNaN(factor) ? NaN : kmAngular(alpha, t, setup.l1, setup.l2, setup.restraint, factor) - 1;
+}
+
+/** km − 1 from a kink |α| (degrees) on a plate with the formula used, or why it cannot be given. */
 export function deltaAngular(
   setup: Setup,
   plate: 1 | 2,
   absAlphaDeg: number,
 ): AngularDelta | { notAssessed: string } {
-  const t = setup.family === 'butt' ? plateT(setup, plate) : setup.t1;
-  const alpha = absAlphaDeg * RAD;
-  const { sigmaM, E, restraint: ends } = setup;
-  if (!setup.armsKnown) {
-    if (sigmaM !== null && sigmaM > 0) {
-      return {
-        delta: kmAngularLongArms(alpha, sigmaM, E) - 1,
-        factor: null,
-        formula: 'long-arm limit 1 + 1.5·α/√(3σm/E) (free lengths unknown: the upper bound over l)',
-      };
-    }
-    return { notAssessed: 'needs the free lengths (fatigue.freeLength1/2), or a tensile membrane stress' };
-  }
-  const { l1, l2 } = setup;
-  let factor = 1;
-  let how = 'no straightening';
-  if (sigmaM !== null && sigmaM !== 0 && !(sigmaM < 0 && setup.compression === 'noRelief')) {
-    // Unequal arms: β from the shorter arm, which relieves least (conservative).
-    const beta = straighteningBeta(Math.min(l1, l2), t, sigmaM, E);
-    factor = straighteningFactor(beta, ends, sigmaM < 0);
-    if (!Number.isFinite(factor)) {
-      return {
-        notAssessed: 'the compressive membrane stress reaches the elastic buckling load of the kinked arm',
-      };
-    }
-    how =
-      sigmaM > 0
+  const delta = angularDelta(setup, plate, absAlphaDeg);
+  const { sigmaM, restraint: ends } = setup;
+  if (!setup.armsKnown) return Number.isNaN(delta) ? { notAssessed: NO_ARMS } : { delta, factor: null, formula: LONG_ARMS };
+  if (Number.isNaN(delta)) return { notAssessed: BUCKLED };
+  const factor = angularFactor(setup, setup.family === 'butt' ? plateT(setup, plate) : setup.t1);
+  const how =
+    factor === 1
+      ? 'no straightening'
+      : sigmaM !== null && sigmaM > 0
         ? `straightening ${ends === 'clamped' ? 'tanh(β/2)/(β/2)' : 'tanh(β)/β'}`
         : `amplification ${ends === 'clamped' ? 'tan(β/2)/(β/2)' : 'tan(β)/β'}`;
-  }
   const lambda = ends === 'clamped' ? 3 : 6;
-  return {
-    delta: kmAngular(alpha, t, l1, l2, ends, factor) - 1,
-    factor,
-    formula: `1 + ${lambda}·α·l1·l2/(t·(l1 + l2))·factor, ${ends} ends, ${how}`,
-  };
+  return { delta, factor, formula: `1 + ${lambda}·α·l1·l2/(t·(l1 + l2))·factor, ${ends} ends, ${how}` };
 }
 
 export interface BendingState {
@@ -160,30 +162,21 @@ export interface BendingState {
 export function bendingOf(setup: Setup, mis: MisalignmentInputs): BendingState {
   const surfaces = surfacesOf(setup.joint);
   let angularProblem: string | null = null;
-  const cache = new Map<string, number>();
-  const ang = (plate: 1 | 2, a: number): number => {
-    const key = `${plate}|${a}`;
-    const known = cache.get(key);
-    if (known !== undefined) return known;
-    const d = deltaAngular(setup, plate, a);
-    const v = 'delta' in d ? d.delta : 0;
-    if (!('delta' in d)) angularProblem = d.notAssessed;
-    cache.set(key, v);
-    return v;
-  };
   const b = surfaces.map((s) => {
     let lin = -Infinity;
     for (const m of [mis.eHi, mis.eLo]) {
       if (!m) continue;
-      lin = Math.max(
-        lin,
-        linearSign(setup.joint, s, m.value) * deltaAxial(setup, s.plate, Math.abs(m.value)),
-      );
+      lin = Math.max(lin, linearSign(setup.joint, s, m.value) * deltaAxial(setup, s.plate, Math.abs(m.value)));
     }
     let an = -Infinity;
     for (const m of [mis.aHi, mis.aLo]) {
       if (!m) continue;
-      an = Math.max(an, angularSign(setup.joint, s, m.value) * ang(s.plate, Math.abs(m.value)));
+      const d = angularDelta(setup, s.plate, Math.abs(m.value));
+      if (Number.isNaN(d)) {
+        angularProblem ??= setup.armsKnown ? BUCKLED : NO_ARMS;
+        continue;
+      }
+      an = Math.max(an, angularSign(setup.joint, s, m.value) * d);
     }
     return (lin === -Infinity ? 0 : lin) + (an === -Infinity ? 0 : an);
   });

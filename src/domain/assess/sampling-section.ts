@@ -2,7 +2,7 @@ import { BUILT_IN_CRITERIA } from '../criteria/registry.js';
 import type { ReadingGrade } from '../grade/reading.js';
 import type { SeamGrade } from '../grade/seam.js';
 import { readingSide } from '../model/joint.js';
-import { PARAMETERS, type ParameterName } from '../model/parameters.js';
+import { PARAMETER_NAMES, PARAMETERS, type ParameterName } from '../model/parameters.js';
 import type { Edition, Reading } from '../model/seam-file.js';
 import { adequacyOf, type SamplePoint } from '../sampling/adequacy.js';
 import { DEFAULT_RESOLUTION, midPlaneE, positionOf } from './readings.js';
@@ -47,12 +47,30 @@ function rowParameter(edition: Edition): Map<string, ParameterName> {
   return m;
 }
 
-function placeOf(name: ParameterName, r: Reading): string {
+const PLACES = [
+  'plate 1 face-side toe',
+  'plate 1 root-side toe',
+  'plate 2 face-side toe',
+  'plate 2 root-side toe',
+  'face side',
+  'root side',
+  'toe not named',
+  'side not named',
+  '',
+] as const;
+
+/** Where on the joint a value belongs, as an index into PLACES (numbers keep the grouping cheap). */
+function placeOf(name: ParameterName, r: Reading): number {
   const per = PARAMETERS[name].per;
-  if (per === 'toe') return r.toe ? `plate ${r.toe.plate} ${r.toe.side}-side toe` : 'toe not named';
-  if (per === 'side') return readingSide(r) ? `${readingSide(r)} side` : 'side not named';
-  return '';
+  if (per === 'toe') return r.toe ? (r.toe.plate - 1) * 2 + (r.toe.side === 'root' ? 1 : 0) : 6;
+  if (per === 'side') {
+    const side = readingSide(r);
+    return side === 'face' ? 4 : side === 'root' ? 5 : 7;
+  }
+  return 8;
 }
+
+const PARAMETER_INDEX = new Map(PARAMETER_NAMES.map((n, i) => [n, i]));
 
 /** Sampling adequacy per measured parameter and place on the seam, from the round's at-pitch readings. */
 export function samplingSection(
@@ -67,38 +85,41 @@ export function samplingSection(
   for (const rg of roundGrade?.readings ?? []) graded.set(rg.readingId, rg);
   const columnsOnly = !!roundGrade && roundGrade.readingCount > 0 && roundGrade.readings.length === 0;
   const rows = rowParameter(setup.seam.acceptance.edition);
-  const groups = new Map<
-    string,
-    { name: ParameterName; place: string; points: SamplePoint[]; required: string | null }
-  >();
+  const groups = new Map<number, { name: ParameterName; place: string; points: SamplePoint[]; required: string | null }>();
   for (const r of readings) {
     if (r.sampling !== 'atPitch') continue;
-    for (const field of Object.keys(r.values)) {
+    const imperfections = graded.get(r.id)?.imperfections ?? [];
+    const id = r.id;
+    const position = positionOf(r);
+    const resMm = r.instrument.resolutionMm ?? null;
+    const resDeg = r.instrument.resolutionDeg ?? null;
+    const values = r.values;
+    for (const field in values) {
       const name = field as ParameterName;
-      const raw = r.values[name];
+      const raw = values[name];
       if (raw === undefined) continue;
       const value = name === 'linearMisalignment' ? (midPlaneE(setup, r) as number) : raw;
       const place = placeOf(name, r);
-      const key = `${name}|${place}`;
+      const key = (PARAMETER_INDEX.get(name) as number) * PLACES.length + place;
       let g = groups.get(key);
       if (!g) {
-        g = { name, place, points: [], required: null };
+        g = { name, place: PLACES[place] as string, points: [], required: null };
         groups.set(key, g);
       }
       let margin: number | null = null;
-      for (const imp of graded.get(r.id)?.imperfections ?? []) {
-        if (rows.get(imp.rowId) !== name || imp.margin === null) continue;
+      for (const imp of imperfections) {
+        if (imp.margin === null || rows.get(imp.rowId) !== name) continue;
         margin = margin === null ? imp.margin : Math.min(margin, imp.margin);
         g.required ??= imp.required;
       }
-      const unit = PARAMETERS[name].unit;
-      const res = unit === 'mm' ? r.instrument.resolutionMm : r.instrument.resolutionDeg;
-      g.points.push({ readingId: r.id, position: positionOf(r), value, margin, resolution: res ?? null });
+      const resolution = PARAMETERS[name].unit === 'mm' ? resMm : resDeg;
+      g.points.push({ readingId: id, position, value, margin, resolution });
     }
   }
+  const gradedParameters = new Set(rows.values());
   const parameters = [...groups.values()].map((g) => {
     const unit = PARAMETERS[g.name].unit;
-    const hasRow = [...rows.values()].includes(g.name);
+    const hasRow = gradedParameters.has(g.name);
     const riskUnavailable = columnsOnly
       ? 'the grade holds columns only: grade with reading objects to estimate the risk'
       : !hasRow || g.points.every((p) => p.margin === null)

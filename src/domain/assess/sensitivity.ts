@@ -1,5 +1,6 @@
 import { INDICATIVE_CAUTION } from '../caution.js';
 import { cyclesToFailure } from '../fatigue/sn-curve.js';
+import { effectiveMax, notchNumbers, type NotchNumbers } from '../notch/toe-factors.js';
 import type { ToeGeometry } from '../notch/types.js';
 import { bendingOf, type Measured, type MisalignmentInputs } from './bending.js';
 import { positionOf, resolutionOf } from './readings.js';
@@ -31,10 +32,14 @@ function lifeFrom(b: readonly number[], fixed: Fixed): number | null {
   return cyclesToFailure(fixed.stressRange, fixed.fatTimesThickness / kmEff);
 }
 
-/** Life and toe factors after a change; a change of one toe's geometry leaves km, life and the other toes alone. */
+/**
+ * Life and toe factors after a change. A change of one toe's geometry leaves km, life and the other toes alone;
+ * a change of misalignment leaves every toe's notch factors alone and only moves the secondary bending.
+ */
 function evaluate(
   setup: Setup,
   base: Outcome | null,
+  notches: readonly NotchNumbers[],
   mis: MisalignmentInputs,
   picks: readonly ToePick[],
   changedToe: number | null,
@@ -47,7 +52,11 @@ function evaluate(
     return { life: base.life, toes, b: base.b };
   }
   const { b } = bendingOf(setup, mis);
-  return { life: lifeFrom(b, fixed), toes: picks.map((p) => toeScore(setup, p.geometry, b[p.surface] ?? 0)), b };
+  return {
+    life: lifeFrom(b, fixed),
+    toes: picks.map((p, i) => effectiveMax(notches[i] as NotchNumbers, b[p.surface] ?? 0)),
+    b,
+  };
 }
 
 interface Input {
@@ -160,18 +169,20 @@ export function sensitivitySection(
   picks: readonly ToePick[],
   fixed: Fixed,
 ): Sensitivity {
-  const base = evaluate(setup, null, mis, picks, null, fixed);
+  const notches = picks.map((p) => notchNumbers(setup.family, p.geometry));
+  const base = evaluate(setup, null, notches, mis, picks, null, fixed);
+  const labels = picks.map((p) => toeLabel(setup, p.toe));
   const byLife = base.life !== null && Number.isFinite(base.life);
   const inputs = [...misalignmentInputsToVary(mis, picks), ...toeInputsToVary(setup, mis, picks)];
   const rows: SensitivityRow[] = inputs.map((inp) => {
     const lo = inp.apply(-inp.uncertainty);
     const hi = inp.apply(inp.uncertainty);
-    const a = evaluate(setup, base, lo.mis, lo.picks, inp.toe, fixed);
-    const b = evaluate(setup, base, hi.mis, hi.picks, inp.toe, fixed);
+    const a = evaluate(setup, base, notches, lo.mis, lo.picks, inp.toe, fixed);
+    const b = evaluate(setup, base, notches, hi.mis, hi.picks, inp.toe, fixed);
     const rel = (x: number | null): number => (x === null || base.life === null ? 0 : x / base.life - 1);
     const life = byLife ? { minus: rel(a.life), plus: rel(b.life) } : null;
-    const toeFactors = picks.map((p, i) => ({
-      label: toeLabel(setup, p.toe),
+    const toeFactors = picks.map((_, i) => ({
+      label: labels[i] as string,
       minus: (a.toes[i] as number) - (base.toes[i] as number),
       plus: (b.toes[i] as number) - (base.toes[i] as number),
     }));

@@ -58,3 +58,30 @@ export function anthesCruciformOutside(tOverRho: number, flankDeg: number, aOver
     ...outsideOf(rootGapBounds(tOverRho, sOverT)).map((m) => `${m} (or s/t = 0)`),
   ];
 }
+
+/**
+ * Signs of ∂Kt/∂φ and ∂Kt/∂(t/ρ) of the butt formula (derived by differentiating it): where both are ≥ 0 the
+ * measured point is the largest value for smaller angles and larger radii, and no search is needed.
+ */
+export function anthesButtRises(tOverRho: number, flankDeg: number): boolean {
+  const s = Math.sin(flankDeg * RAD);
+  const poly = 0.181 + 1.207 * s - 1.737 * s * s + 0.689 * s * s * s;
+  const dPoly = 1.207 - 3.474 * s + 2.067 * s * s;
+  const exponent = 0.2919 + 0.3491 * Math.sin((flankDeg + 3.283) * RAD);
+  const lnX = Math.log(tOverRho);
+  const dTheta = dPoly * Math.cos(flankDeg * RAD) + poly * lnX * 0.3491 * Math.cos((flankDeg + 3.283) * RAD);
+  const x207 = tOverRho ** 0.207;
+  const xE = tOverRho ** exponent;
+  const a = 1 - 0.156 * x207;
+  const dX = -0.156 * 0.207 * x207 * (1 + poly * xE) + a * poly * exponent * xE;
+  return dTheta >= 0 && dX >= 0;
+}
+
+/** The same for the cruciform formula with s = 0 (derived): both signs reduce to simple sums. */
+export function anthesCruciformRises(tOverRho: number, flankDeg: number): boolean {
+  const s = Math.sin(flankDeg * RAD);
+  const c = 1 + 2.153 * tOverRho ** 0.154 - 3.738 * s ** 0.481;
+  const dTheta = -3.738 * 0.481 * s ** 0.481 + 1.723 * c;
+  const dX = 2.153 * 0.154 * tOverRho ** 0.154 + 0.172 * c;
+  return dTheta >= 0 && dX >= 0;
+}

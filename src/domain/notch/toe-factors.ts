@@ -1,10 +1,12 @@
 import {
   anthesButtBending,
   anthesButtInside,
+  anthesButtRises,
   anthesButtOutside,
   anthesCruciformBending,
   anthesCruciformInside,
   anthesCruciformOutside,
+  anthesCruciformRises,
 } from './anthes.js';
 import { envelope } from './envelope.js';
 import { kiyakButtBending, kiyakInside, kiyakNotes, kiyakOutside, kiyakPeakFlank } from './kiyak.js';
@@ -68,7 +70,8 @@ function anthesButt(g: ToeGeometry): FormulaNumber {
   const ratio = g.t / g.rho;
   const raw = anthesButtBending(ratio, g.flankDeg);
   const inRange = anthesButtInside(ratio, g.flankDeg);
-  return numeric('anthesButtBending', raw, inRange, inRange ? envelope(anthesButtBending, 1e-3, ratio, 0, g.flankDeg) : null);
+  const search = inRange && !anthesButtRises(ratio, g.flankDeg);
+  return numeric('anthesButtBending', raw, inRange, search ? envelope(anthesButtBending, 1e-3, ratio, 0, g.flankDeg) : null);
 }
 
 function kiyak(g: ToeGeometry, h: number): FormulaNumber {
@@ -91,7 +94,8 @@ function anthesCruciform(g: ToeGeometry): FormulaNumber {
   const f = (r: number, th: number): number => anthesCruciformBending(r, th, aOverT, 0);
   const raw = f(ratio, g.flankDeg);
   const inRange = anthesCruciformInside(ratio, g.flankDeg, aOverT, 0);
-  return numeric('anthesCruciformBending', raw, inRange, inRange ? envelope(f, 15, ratio, 30, g.flankDeg) : null);
+  const search = inRange && !anthesCruciformRises(ratio, g.flankDeg);
+  return numeric('anthesCruciformBending', raw, inRange, search ? envelope(f, 15, ratio, 30, g.flankDeg) : null);
 }
 
 const alphaOf = (joint: NotchJoint): number => (joint === 'butt' ? LAWRENCE_ALPHA.butt : LAWRENCE_ALPHA.fillet);

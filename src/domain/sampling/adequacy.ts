@@ -32,10 +32,12 @@ export interface AdequacyInput {
   readonly riskUnavailable?: string;
 }
 
-export interface RunningPoint {
-  readonly position: number;
-  readonly count: number;
-  readonly mean: number;
+/** The running mean as positions are added in order along the seam: after positions[i], the mean is means[i]. */
+export interface RunningMean {
+  readonly positions: readonly number[];
+  readonly means: readonly number[];
+  /** How many positions each entry stands for (1 unless a long series was thinned to MAX_SERIES entries). */
+  readonly counts: readonly number[];
 }
 
 export interface Risk {
@@ -59,7 +61,7 @@ export interface Adequacy {
   readonly sd: number | null;
   readonly ci95: { readonly low: number; readonly high: number; readonly halfWidth: number } | null;
   readonly target: { readonly value: number; readonly basis: string };
-  readonly runningMean: readonly RunningPoint[];
+  readonly runningMean: RunningMean;
   readonly settled: boolean;
   /** Positions after which the running mean stayed within ±target of the final mean. */
   readonly settledAfter: number | null;
@@ -71,17 +73,26 @@ export interface Adequacy {
 
 const MAX_SERIES = 200;
 
-const fmt = (x: number, digits = 3): string => String(Number(x.toPrecision(digits)));
+/** A number to `digits` significant figures, without trailing zeros (plain arithmetic: cheaper than toPrecision). */
+function fmt(x: number, digits = 3): string {
+  if (x === 0 || !Number.isFinite(x)) return String(x);
+  const decimals = Math.max(0, digits - 1 - Math.floor(Math.log10(Math.abs(x))));
+  const f = 10 ** decimals;
+  return String(Math.round(x * f) / f);
+}
 const pct = (p: number): string =>
-  p < 0.001 ? 'under 0.1 %' : p > 0.999 ? 'over 99.9 %' : `${Number((100 * p).toPrecision(2))} %`;
+  p < 0.001 ? 'under 0.1 %' : p > 0.999 ? 'over 99.9 %' : `${fmt(100 * p, 2)} %`;
 
-function series(positions: readonly number[], means: readonly number[]): RunningPoint[] {
+function series(positions: readonly number[], means: readonly number[]): RunningMean {
   const n = means.length;
-  const step = n > MAX_SERIES ? (n - 1) / (MAX_SERIES - 1) : 1;
-  const out: RunningPoint[] = [];
-  for (let k = 0; k < Math.min(n, MAX_SERIES); k++) {
+  if (n <= MAX_SERIES) return { positions, means, counts: means.map((_, i) => i + 1) };
+  const step = (n - 1) / (MAX_SERIES - 1);
+  const out = { positions: [] as number[], means: [] as number[], counts: [] as number[] };
+  for (let k = 0; k < MAX_SERIES; k++) {
     const i = Math.round(k * step);
-    out.push({ position: positions[i] as number, count: i + 1, mean: means[i] as number });
+    out.positions.push(positions[i] as number);
+    out.means.push(means[i] as number);
+    out.counts.push(i + 1);
   }
   return out;
 }

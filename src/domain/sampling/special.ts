@@ -103,14 +103,19 @@ export function normalCdf(x: number): number {
   return x >= 0 ? 0.5 * (1 + p) : 0.5 * (1 - p);
 }
 
-/** The standard normal p-quantile by Newton steps on normalCdf (0 < p < 1). */
+const normalQuantiles = new Map<number, number>();
+
+/** The standard normal p-quantile by Newton steps on normalCdf (0 < p < 1); memoised. */
 export function normalQuantile(p: number): number {
+  const known = normalQuantiles.get(p);
+  if (known !== undefined) return known;
   let x = 0;
   for (let i = 0; i < 100; i++) {
     const step = (normalCdf(x) - p) / (Math.exp((-x * x) / 2) / Math.sqrt(2 * Math.PI));
     x -= Math.max(-2, Math.min(2, step));
     if (Math.abs(step) < 1e-14 * Math.max(1, Math.abs(x))) break;
   }
+  if (normalQuantiles.size < 1000) normalQuantiles.set(p, x);
   return x;
 }
 
@@ -131,7 +136,23 @@ export function studentTPdf(t: number, nu: number): number {
   return Math.exp(logC - ((nu + 1) / 2) * Math.log1p((t * t) / nu));
 }
 
-const quantiles = new Map<string, number>();
+/** Memo of t quantiles: p → (ν → quantile). */
+const quantiles = new Map<number, Map<number, number>>();
+const MEMO_LIMIT = 20_000;
+let memoSize = 0;
+
+function remember(p: number, nu: number, value: number): number {
+  let byNu = quantiles.get(p);
+  if (!byNu) {
+    byNu = new Map();
+    quantiles.set(p, byNu);
+  }
+  if (memoSize < MEMO_LIMIT) {
+    byNu.set(nu, value);
+    memoSize++;
+  }
+  return value;
+}
 
 /** From here on the Cornish–Fisher expansion agrees with the inversion to better than 1e-9. */
 export const LARGE_NU = 100;
@@ -141,15 +162,10 @@ export const LARGE_NU = 100;
  * a bisection bracket below ν = 100, the Cornish–Fisher expansion from there on; memoised.
  */
 export function studentTQuantile(p: number, nu: number): number {
-  const key = `${p}|${nu}`;
-  const known = quantiles.get(key);
+  const known = quantiles.get(p)?.get(nu);
   if (known !== undefined) return known;
   if (p === 0.5) return 0;
-  if (nu >= LARGE_NU) {
-    const v = studentTQuantileLargeNu(p, nu);
-    if (quantiles.size < 10_000) quantiles.set(key, v);
-    return v;
-  }
+  if (nu >= LARGE_NU) return remember(p, nu, studentTQuantileLargeNu(p, nu));
   const upper = p > 0.5;
   const q = upper ? p : 1 - p;
   let lo = 0;
@@ -172,7 +188,5 @@ export function studentTQuantile(p: number, nu: number): number {
     }
     x = next;
   }
-  const value = upper ? x : -x;
-  if (quantiles.size < 10_000) quantiles.set(key, value);
-  return value;
+  return remember(p, nu, upper ? x : -x);
 }

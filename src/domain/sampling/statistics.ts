@@ -1,4 +1,4 @@
-import { studentTCdf, studentTQuantile } from './special.js';
+import { normalQuantile, studentTCdf, studentTQuantile } from './special.js';
 
 export interface MeanSd {
   readonly n: number;
@@ -37,23 +37,25 @@ export function positionsForHalfWidth(sd: number, target: number, confidence = 0
   if (!(target > 0) || !Number.isFinite(sd)) return null;
   if (sd === 0) return 2;
   const ok = (n: number): boolean => confidenceHalfWidth(sd, n, confidence) <= target;
-  // The half-width falls as n grows: bracket the smallest n that meets the target, then bisect. The normal
-  // quantile's estimate (z·s/target)² is a lower bound, since t > z.
-  const z = studentTQuantile((1 + confidence) / 2, 1e9);
-  let lo = Math.max(1, Math.floor(((z * sd) / target) ** 2) - 1);
+  // The half-width falls as n grows, so the smallest n meeting the target is bracketed and bisected. Below it:
+  // (z·s/target)², since t > z. Above it: n1 = (t_{lo−1}·s/target)², since t_{n1−1} ≤ t_{lo−1} once n1 ≥ lo.
+  const q = (1 + confidence) / 2;
+  const z = normalQuantile(q);
+  let lo = Math.max(2, Math.floor(((z * sd) / target) ** 2) - 1);
   if (lo >= MAX_POSITIONS) return null;
-  let hi = Math.max(lo + 1, 2);
-  while (!ok(hi)) {
-    lo = hi;
-    hi *= 2;
-    if (hi > 2 * MAX_POSITIONS) return null;
+  if (ok(lo)) {
+    while (lo > 2 && ok(lo - 1)) lo--;
+    return lo;
   }
+  let hi = Math.max(lo + 1, Math.ceil(((studentTQuantile(q, lo - 1) * sd) / target) ** 2));
+  if (hi > 2 * MAX_POSITIONS) return null;
+  while (!ok(hi)) hi++;
   while (hi - lo > 1) {
     const mid = Math.floor((lo + hi) / 2);
     if (ok(mid)) hi = mid;
     else lo = mid;
   }
-  return hi <= MAX_POSITIONS ? Math.max(2, hi) : null;
+  return hi <= MAX_POSITIONS ? hi : null;
 }
 
 /** The mean after each position is added, in the order given. */
@@ -100,9 +102,12 @@ export function atLeastOne(p: number, m: number): number {
 
 /** The regular spacing of the positions: the median gap between distinct sorted positions. */
 export function pitchOf(positions: readonly number[]): number | null {
-  const s = [...new Set(positions)].sort((a, b) => a - b);
+  const s = [...positions].sort((a, b) => a - b);
   const gaps: number[] = [];
-  for (let i = 1; i < s.length; i++) gaps.push((s[i] as number) - (s[i - 1] as number));
+  for (let i = 1; i < s.length; i++) {
+    const gap = (s[i] as number) - (s[i - 1] as number);
+    if (gap > 0) gaps.push(gap);
+  }
   if (!gaps.length) return null;
   gaps.sort((a, b) => a - b);
   const mid = gaps.length >> 1;

@@ -74,12 +74,12 @@ import {
   afterUndo,
   currentReadings,
   loadSession,
-  planUndo,
-  replacedIds,
+  planUndoIn,
   saveSession,
   type SessionEntry,
 } from './session.js';
 import { sidesWithToes } from './joint-geometry.js';
+import { noteEngagement } from '../../pwa/persistence.js';
 import { useGrade } from './use-grade.js';
 import type { SeamData } from './use-seam-data.js';
 
@@ -99,7 +99,8 @@ function untypedField(form: HTMLFormElement | null): HTMLInputElement | null {
 /** The reading-entry form and its results, for a seam that has at least one round. */
 export function GaugeEntry(props: {
   readonly data: SeamData;
-  readonly reload: () => Promise<SeamData | null>;
+  /** Reads what changed since `data` (after a save or an undo). */
+  readonly refresh: () => Promise<SeamData | null>;
 }) {
   const { data } = props;
   const { store, file } = data;
@@ -177,8 +178,10 @@ export function GaugeEntry(props: {
   const pitchError = checkPitch(pitch, length);
 
   const current = useMemo(() => currentReadings(data.entryOrder), [data.entryOrder]);
-  const replacedCount = useMemo(() => replacedIds(data.entryOrder).size, [data.entryOrder]);
-  const undoPlan = planUndo(sessionIds, data.entryOrder);
+  // Readings a later one corrected or withdrew; the context keeps them by id, so nothing is recounted per save.
+  const replacedCount = data.context.supersededBy.size;
+  const undoPlan = planUndoIn(sessionIds, data.context);
+  const sessionSet = useMemo(() => new Set(sessionIds.map((e) => e.id)), [sessionIds]);
 
   // A message goes as soon as the field it is about changes; the rest stay until the next save.
   const clearProblems = (...keys: (keyof FieldProblems)[]) =>
@@ -327,7 +330,7 @@ export function GaugeEntry(props: {
         supersedes: target?.id,
       },
     );
-    const found = built.ok ? checkNewReading(file, built.reading) : built.problems;
+    const found = built.ok ? checkNewReading(data.context, built.reading) : built.problems;
     if (!built.ok || Object.keys(found).length) {
       setProblems(found);
       setStatus('Not saved: see the messages by the fields.');
@@ -345,6 +348,8 @@ export function GaugeEntry(props: {
       setStatus('Not saved.');
       return;
     }
+    // The inspector has done real work here: ask the browser, once, to keep this device's data.
+    void noteEngagement().catch(() => undefined);
     const ids = [...sessionIds, { id: reading.id, correction: target !== null }];
     setSessionIds(ids);
     saveSession(sessionStorage, seamId, ids);
@@ -370,7 +375,7 @@ export function GaugeEntry(props: {
     setFocusTick((n) => n + 1);
     const what = `${target ? 'Correction saved' : 'Saved'}: ${describeReading(reading, seam)}.`;
     setStatus(`${what} Grading…`);
-    const fresh = await props.reload();
+    const fresh = await props.refresh();
     if (!fresh) return;
     const said = await grade(
       fresh.file,
@@ -384,7 +389,7 @@ export function GaugeEntry(props: {
 
   const undo = async () => {
     if (busy) return;
-    const plan = planUndo(sessionIds, data.entryOrder);
+    const plan = planUndoIn(sessionIds, data.context);
     if (plan.kind === 'nothing') {
       setStatus(`Nothing to undo: ${plan.reason}.`);
       return;
@@ -394,7 +399,7 @@ export function GaugeEntry(props: {
       plan.kind === 'withdraw'
         ? buildWithdrawal(plan.target, s)
         : buildRestore(plan.original, plan.target, s);
-    const found = checkNewReading(file, rec);
+    const found = checkNewReading(data.context, rec);
     if (Object.keys(found).length) {
       setProblems({ form: `Undo refused: ${Object.values(found).join('; ')}` });
       return;
@@ -429,7 +434,7 @@ export function GaugeEntry(props: {
         ? `Withdrawn (kept on record): ${describeReading(plan.target, seam)}.`
         : `Correction undone; the earlier values count again: ${describeReading(plan.original, seam)}.`;
     setStatus(`${what} Grading…`);
-    const fresh = await props.reload();
+    const fresh = await props.refresh();
     if (!fresh) return;
     const said = await grade(
       fresh.file,
@@ -640,7 +645,7 @@ export function GaugeEntry(props: {
           seam={seam}
           readings={current}
           replacedCount={replacedCount}
-          sessionIds={new Set(sessionIds.map((e) => e.id))}
+          sessionIds={sessionSet}
           correctingId={target?.id ?? null}
           onCorrect={startCorrection}
         />

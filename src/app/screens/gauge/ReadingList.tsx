@@ -18,8 +18,9 @@ export function ReadingList(props: {
   readonly onCorrect: (r: Reading) => void;
 }) {
   const [all, setAll] = useState(false);
-  const newest = [...props.readings].reverse();
-  const list = all ? newest : newest.slice(0, SHOWN);
+  // Only the rows shown are copied and reversed: a seam may hold thousands of readings.
+  const total = props.readings.length;
+  const list = (all ? [...props.readings] : props.readings.slice(Math.max(0, total - SHOWN))).reverse();
   return (
     <details class="gauge-list">
       <summary>
@@ -48,9 +49,9 @@ export function ReadingList(props: {
       ) : (
         <p>No readings yet.</p>
       )}
-      {!all && newest.length > SHOWN ? (
+      {!all && total > SHOWN ? (
         <button type="button" onClick={() => setAll(true)}>
-          Show all {newest.length}
+          Show all {total}
         </button>
       ) : null}
     </details>

@@ -42,3 +42,47 @@ export function readExaminer(store: KeyValueStore): Examiner | undefined {
   }
   return undefined;
 }
+
+/** The limits the reading record puts on an examiner (src/domain/model/seam-file.ts). */
+export const EXAMINER_NAME_MAX = 80;
+export const EXAMINER_QUALIFICATION_MAX = 120;
+
+export interface ExaminerDraft {
+  readonly name: string;
+  readonly qualification: string;
+}
+
+/** What is wrong with the examiner typed in Settings, per field; an empty name means "nobody named". */
+export function checkExaminer(draft: ExaminerDraft): Partial<Record<keyof ExaminerDraft, string>> {
+  const out: Partial<Record<keyof ExaminerDraft, string>> = {};
+  const name = draft.name.trim();
+  const qualification = draft.qualification.trim();
+  if (name.length > EXAMINER_NAME_MAX) out.name = `at most ${EXAMINER_NAME_MAX} characters`;
+  if (qualification.length > EXAMINER_QUALIFICATION_MAX)
+    out.qualification = `at most ${EXAMINER_QUALIFICATION_MAX} characters`;
+  if (!name && qualification) out.name = 'enter the name the qualification belongs to';
+  return out;
+}
+
+/**
+ * Saves who inspects on this device under `beadbook.examiner` as {name, qualification?}, where the Gauge screen
+ * and new rounds read it; an empty name forgets it. Returns what readExaminer will read back.
+ */
+export function saveExaminer(
+  store: KeyValueStore & { removeItem(key: string): void },
+  draft: ExaminerDraft,
+): Examiner | undefined {
+  const name = draft.name.trim();
+  const qualification = draft.qualification.trim();
+  if (!name) {
+    try {
+      store.removeItem(EXAMINER_KEYS[0]);
+    } catch {
+      // Storage unavailable: nothing was kept to forget.
+    }
+    return readExaminer(store);
+  }
+  const examiner: Examiner = qualification ? { name, qualification } : { name };
+  storageHelpers.safeSet(store, EXAMINER_KEYS[0], JSON.stringify(examiner));
+  return readExaminer(store);
+}

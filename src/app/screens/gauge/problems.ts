@@ -1,11 +1,11 @@
 import {
   PARAMETER_NAMES,
-  parseSeamFile,
   type ParameterName,
   type Problem,
   type Reading,
-  type SeamFile,
+  type Seam,
 } from '../../../domain/index.js';
+import { checkEntry, type EntryContext } from '../../../../workers/entry-check-api.js';
 import { fieldWords } from './field-labels.js';
 import type { FieldKey, FieldProblems } from './reading-builder.js';
 
@@ -30,7 +30,7 @@ export function fieldOfPath(path: string, index: number): FieldKey | null {
  * The validator's message in the inspector's words: vocabulary names become field names, and the messages
  * that speak of record fields (toe objects, bases) say what to do on this screen instead.
  */
-export function plainMessage(p: Problem, file: SeamFile, reading: Reading): string {
+export function plainMessage(p: Problem, file: { readonly seam: Seam }, reading: Reading): string {
   const side = reading.toe?.side ?? reading.side;
   const m = p.message;
   if (/is measured at a toe/.test(m)) return 'is read at a toe: choose the toe on the drawing';
@@ -45,17 +45,19 @@ export function plainMessage(p: Problem, file: SeamFile, reading: Reading): stri
 }
 
 /**
- * Checks the seam as it would be with the new reading appended, the same check the store and the grader make,
- * and places each problem next to its field. Problems about other records go above the form.
+ * Checks the seam as it would be with the new reading appended, by the rules the store and the grader apply
+ * (checkEntry: the validator's problems for that file, found without validating every earlier reading again, so
+ * a save costs the same with ten readings or ten thousand), and places each problem next to its field. Problems
+ * about other records go above the form.
  */
-export function checkNewReading(file: SeamFile, reading: Reading): FieldProblems {
-  const candidate: SeamFile = { ...file, readings: [...file.readings, reading] };
-  const parsed = parseSeamFile(candidate, { allowNoReadings: true });
-  if (parsed.ok) return {};
-  const index = file.readings.length;
+export function checkNewReading(context: EntryContext, reading: Reading): FieldProblems {
+  const index = context.byId.size;
+  const problems = checkEntry(context, reading, index);
+  if (!problems.length) return {};
+  const file = context;
   const out: FieldProblems = {};
   const general: string[] = [];
-  for (const p of parsed.problems) {
+  for (const p of problems) {
     const field = p.path === 'seam.nominalThroat' ? 'form' : fieldOfPath(p.path, index);
     const text = plainMessage(p, file, reading);
     if (field === null) {

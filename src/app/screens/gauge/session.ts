@@ -55,8 +55,23 @@ export type UndoPlan =
  * Nothing is deleted either way.
  */
 export function planUndo(session: readonly SessionEntry[], readings: readonly Reading[]): UndoPlan {
-  const byId = new Map(readings.map((r) => [r.id, r]));
   const replaced = replacedIds(readings);
+  return planUndoIn(session, {
+    byId: new Map(readings.map((r) => [r.id, r])),
+    supersededBy: new Map([...replaced].map((id) => [id, ''])),
+  });
+}
+
+/** planUndo over readings already indexed by id and by what supersedes them (the Gauge screen keeps both). */
+export function planUndoIn(
+  session: readonly SessionEntry[],
+  readings: {
+    readonly byId: ReadonlyMap<string, Reading>;
+    readonly supersededBy: ReadonlyMap<string, string>;
+  },
+): UndoPlan {
+  const { byId } = readings;
+  const replaced = readings.supersededBy;
   for (let i = session.length - 1; i >= 0; i--) {
     const entry = session[i];
     const target = entry ? byId.get(entry.id) : undefined;

@@ -9,8 +9,9 @@ import {
   type SeamGrade,
 } from '../../../domain/index.js';
 import type { Store } from '../../../store/api.js';
-import { gradeInWorker } from '../../services/grading.js';
-import { findReadingGrade, roundSoFar, type SoFar } from './grade-view.js';
+import type { EntryReply } from '../../../../workers/entry-check-api.js';
+import { entryCheckWorker } from '../../services/entry-check.js';
+import { roundSoFar, type SoFar } from './grade-view.js';
 
 export interface GradeShown {
   readonly heading: string;
@@ -36,12 +37,41 @@ function summaryOf(g: SeamGrade): Parameters<Store['setSummary']>[1] {
 }
 
 /**
- * Asks the grading worker for the seam's grade and picks out one reading's grade and the round's standing. Only
- * the latest request's answer is shown, so a quick second save never shows the first one's result last.
+ * Asks the entry-check worker for the seam's standing and one reading's grade. The worker keeps its own copy of
+ * the seam: the first request sends the seam whole, later ones only the readings entered since, and the answer
+ * carries no per-reading grades, so a save costs the page the same with ten readings or ten thousand. Only the
+ * latest request's answer is shown, so a quick second save never shows the first one's result last.
  */
 export function useGrade(store: Store, seamId: string) {
   const [shown, setShown] = useState<GradeShown | null>(null);
   const ticket = useRef(0);
+  // How many readings of the seam the worker's copy holds; null until it has one.
+  const sent = useRef<number | null>(null);
+
+  const ask = useCallback(async (file: SeamFile, focus: string | null): Promise<EntryReply> => {
+    const api = entryCheckWorker();
+    const base = sent.current;
+    // Counted as sent before the answer comes: the worker takes requests in order, so the next save extends it.
+    sent.current = file.readings.length;
+    try {
+      let reply =
+        base === null || base > file.readings.length
+          ? await api.open(file, focus)
+          : await api.update(
+              { seam: file.seam, rounds: file.rounds, base, added: file.readings.slice(base) },
+              focus,
+            );
+      if (reply.ok === 'resync') {
+        sent.current = file.readings.length;
+        reply = await api.open(file, focus);
+      }
+      if (reply.ok !== true) sent.current = null;
+      return reply;
+    } catch (e) {
+      sent.current = null;
+      throw e;
+    }
+  }, []);
   const grade = useCallback(
     async (
       file: SeamFile,
@@ -61,9 +91,10 @@ export function useGrade(store: Store, seamId: string) {
         error: null,
       }));
       try {
-        const reply = await gradeInWorker(file);
+        const reply = await ask(file, reading?.id ?? null);
         if (mine !== ticket.current) return null;
-        if (!reply.ok) {
+        if (reply.ok !== true) {
+          const problems = reply.ok === false ? reply.problems : [];
           setShown({
             heading,
             reading,
@@ -71,26 +102,26 @@ export function useGrade(store: Store, seamId: string) {
             soFar: null,
             required: null,
             pending: false,
-            error: `The grader refused the seam record: ${describeProblems(reply.problems)}`,
+            error: `The grader refused the seam record: ${describeProblems(problems)}`,
           });
           return null;
         }
-        const found = reading ? findReadingGrade(reply.grade, reading.id) : null;
-        const soFar = roundSoFar(reply.grade, round);
+        const found = reply.reading;
+        const soFar = roundSoFar(reply.standing, round);
         setShown({
           heading,
           reading,
-          grade: found?.reading ?? null,
+          grade: found,
           soFar,
-          required: reply.grade.requiredLevel,
+          required: reply.standing.requiredLevel,
           pending: false,
           error: null,
         });
         if (saveSummary) {
           // The Seams list shows this cached summary; the grade itself is always recomputed.
-          store.setSummary(seamId, summaryOf(reply.grade)).catch(() => undefined);
+          store.setSummary(seamId, summaryOf(reply.standing)).catch(() => undefined);
         }
-        const level = found?.reading.levelMet;
+        const level = found?.levelMet;
         return level ? `level met by this reading: ${levelText(level)}; ${soFar.text}` : soFar.text;
       } catch (e) {
         if (mine === ticket.current) {
@@ -107,7 +138,7 @@ export function useGrade(store: Store, seamId: string) {
         return null;
       }
     },
-    [store, seamId],
+    [store, seamId, ask],
   );
   return { shown, grade };
 }

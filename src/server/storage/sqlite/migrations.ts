@@ -1,0 +1,165 @@
+// The SQLite schema, as numbered migrations applied in order, each in its own transaction and noted in the
+// `migrations` table. Never edit a migration that has shipped: add the next one.
+
+export interface Migration {
+  readonly version: number;
+  readonly name: string;
+  readonly sql: string;
+}
+
+export const MIGRATIONS: readonly Migration[] = [
+  {
+    version: 1,
+    name: 'accounts, devices, signed sync, review changes',
+    sql: `
+CREATE TABLE accounts (
+  id INTEGER PRIMARY KEY,
+  username TEXT NOT NULL UNIQUE,
+  role TEXT NOT NULL CHECK (role IN ('supervisor', 'inspector')),
+  password_hash TEXT NOT NULL,
+  must_change_password INTEGER NOT NULL DEFAULT 0 CHECK (must_change_password IN (0, 1)),
+  created_at TEXT NOT NULL
+);
+
+CREATE TABLE sessions (
+  token_hash TEXT PRIMARY KEY,
+  account_id INTEGER NOT NULL REFERENCES accounts (id) ON DELETE CASCADE,
+  created_at TEXT NOT NULL,
+  expires_at TEXT NOT NULL
+);
+CREATE INDEX sessions_by_account ON sessions (account_id);
+
+CREATE TABLE server_keys (
+  kid TEXT PRIMARY KEY,
+  private_jwk TEXT NOT NULL,
+  public_jwk TEXT NOT NULL,
+  created_at TEXT NOT NULL
+);
+
+CREATE TABLE devices (
+  kid TEXT PRIMARY KEY,
+  public_jwk TEXT NOT NULL,
+  name TEXT NOT NULL,
+  enrolled_at TEXT NOT NULL,
+  revoked_at TEXT,
+  last_contact_at TEXT,
+  reported_queue INTEGER,
+  reported_oldest_at TEXT,
+  reported_at TEXT
+);
+
+CREATE TABLE enrolment_codes (
+  code_hash TEXT PRIMARY KEY,
+  created_by INTEGER NOT NULL REFERENCES accounts (id),
+  created_at TEXT NOT NULL,
+  expires_at TEXT NOT NULL,
+  used_at TEXT,
+  used_by_kid TEXT REFERENCES devices (kid)
+);
+
+CREATE TABLE nonces (
+  nonce TEXT PRIMARY KEY,
+  expires_at TEXT NOT NULL
+);
+
+CREATE TABLE batches (
+  batch_id TEXT PRIMARY KEY,
+  device_kid TEXT NOT NULL REFERENCES devices (kid),
+  device_seq INTEGER NOT NULL,
+  payload_sha256 TEXT NOT NULL,
+  jws TEXT NOT NULL,
+  record_count INTEGER NOT NULL,
+  received_at TEXT NOT NULL
+);
+
+-- receive_seq is the server's receive order (an alias of the rowid, so it survives VACUUM).
+CREATE TABLE records (
+  receive_seq INTEGER PRIMARY KEY,
+  id TEXT NOT NULL UNIQUE,
+  kind TEXT NOT NULL,
+  schema_version INTEGER NOT NULL,
+  seam_id TEXT NOT NULL,
+  device_kid TEXT REFERENCES devices (kid),
+  batch_id TEXT REFERENCES batches (batch_id),
+  device_seq INTEGER NOT NULL,
+  body TEXT NOT NULL,
+  device_created_at TEXT NOT NULL,
+  received_at TEXT NOT NULL
+);
+CREATE INDEX records_by_seam ON records (seam_id);
+CREATE INDEX records_by_device ON records (device_kid);
+
+CREATE TABLE parked_records (
+  id TEXT PRIMARY KEY,
+  kind TEXT NOT NULL,
+  schema_version INTEGER NOT NULL,
+  seam_id TEXT,
+  device_kid TEXT NOT NULL REFERENCES devices (kid),
+  batch_id TEXT NOT NULL REFERENCES batches (batch_id),
+  record TEXT NOT NULL,
+  received_at TEXT NOT NULL
+);
+
+CREATE TABLE rejections (
+  batch_id TEXT NOT NULL REFERENCES batches (batch_id),
+  record_index INTEGER NOT NULL,
+  record_id TEXT,
+  reason TEXT NOT NULL,
+  PRIMARY KEY (batch_id, record_index)
+);
+
+CREATE TABLE device_seams (
+  device_kid TEXT NOT NULL REFERENCES devices (kid),
+  seam_id TEXT NOT NULL,
+  PRIMARY KEY (device_kid, seam_id)
+) WITHOUT ROWID;
+
+CREATE TABLE seams (
+  id TEXT PRIMARY KEY,
+  namespace TEXT NOT NULL CHECK (namespace IN ('live', 'demo')),
+  setup TEXT NOT NULL,
+  created_at TEXT NOT NULL,
+  created_by INTEGER REFERENCES accounts (id)
+);
+
+CREATE TABLE changes (
+  seq INTEGER PRIMARY KEY AUTOINCREMENT,
+  kind TEXT NOT NULL CHECK (kind IN ('assignment', 'decision')),
+  item_id TEXT NOT NULL UNIQUE,
+  seam_id TEXT NOT NULL,
+  device_kid TEXT REFERENCES devices (kid),
+  item TEXT NOT NULL,
+  created_at TEXT NOT NULL,
+  created_by INTEGER REFERENCES accounts (id)
+);
+CREATE INDEX changes_by_device ON changes (device_kid, seq);
+CREATE INDEX changes_by_seam ON changes (seam_id, seq);
+
+CREATE TABLE server_grades (
+  seam_id TEXT PRIMARY KEY,
+  based_on INTEGER NOT NULL,
+  graded_at TEXT NOT NULL,
+  state TEXT NOT NULL,
+  level_met TEXT,
+  meets_required INTEGER,
+  summary TEXT NOT NULL
+);
+
+CREATE TABLE device_grades (
+  seam_id TEXT NOT NULL,
+  device_kid TEXT NOT NULL REFERENCES devices (kid),
+  batch_seq INTEGER NOT NULL,
+  grade TEXT NOT NULL,
+  PRIMARY KEY (seam_id, device_kid)
+);
+
+CREATE TABLE security_events (
+  id INTEGER PRIMARY KEY AUTOINCREMENT,
+  at TEXT NOT NULL,
+  kind TEXT NOT NULL,
+  device_kid TEXT,
+  detail TEXT NOT NULL
+);
+`,
+  },
+];

@@ -1,0 +1,54 @@
+// Opens (and on first use creates) the SQLite database: WAL, foreign keys on, synchronous FULL (a record the
+// device was told is stored must survive a power cut, since the device then forgets it), then pending migrations.
+import Database from 'better-sqlite3';
+import { mkdirSync } from 'node:fs';
+import { dirname } from 'node:path';
+import { MIGRATIONS, type Migration } from './migrations.js';
+
+export type Db = Database.Database;
+
+export function openDatabase(file: string, migrations: readonly Migration[] = MIGRATIONS): Db {
+  const memory = file === ':memory:';
+  if (!memory) mkdirSync(dirname(file), { recursive: true });
+  const db = new Database(file);
+  try {
+    if (!memory) db.pragma('journal_mode = WAL');
+    db.pragma('foreign_keys = ON');
+    db.pragma('synchronous = FULL');
+    db.pragma('busy_timeout = 5000');
+    migrate(db, migrations);
+    return db;
+  } catch (error) {
+    db.close();
+    throw error;
+  }
+}
+
+export function migrate(db: Db, migrations: readonly Migration[]): number[] {
+  db.exec(`CREATE TABLE IF NOT EXISTS migrations (
+    version INTEGER PRIMARY KEY,
+    name TEXT NOT NULL,
+    applied_at TEXT NOT NULL
+  )`);
+  const applied = new Set(
+    (db.prepare('SELECT version FROM migrations').all() as { version: number }[]).map((r) => r.version),
+  );
+  const known = Math.max(0, ...migrations.map((m) => m.version));
+  const newest = Math.max(0, ...applied);
+  if (newest > known) {
+    throw new Error(
+      `the database is at schema version ${newest}, newer than this server knows (${known}): run the newer server`,
+    );
+  }
+  const note = db.prepare('INSERT INTO migrations (version, name, applied_at) VALUES (?, ?, ?)');
+  const ran: number[] = [];
+  for (const m of [...migrations].sort((a, b) => a.version - b.version)) {
+    if (applied.has(m.version)) continue;
+    db.transaction(() => {
+      db.exec(m.sql);
+      note.run(m.version, m.name, new Date().toISOString());
+    }).immediate();
+    ran.push(m.version);
+  }
+  return ran;
+}

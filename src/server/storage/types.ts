@@ -1,0 +1,282 @@
+// The storage contract of the yard server. Every statement lives behind it: the HTTP layer and the sync logic
+// speak only these operations, each atomic, so a PostgreSQL store can stand beside the SQLite one. Methods are
+// asynchronous for that reason even where SQLite answers at once. Times are ISO 8601 UTC strings from the server
+// clock (never a device's); JSON columns hold canonical JSON text.
+import type { RecordResult } from '../../protocol/index.js';
+
+export type Role = 'supervisor' | 'inspector';
+export type SeamNamespace = 'live' | 'demo';
+
+export interface Account {
+  readonly id: number;
+  readonly username: string;
+  readonly role: Role;
+  readonly mustChangePassword: boolean;
+  readonly createdAt: string;
+}
+
+export interface AccountWithHash extends Account {
+  readonly passwordHash: string;
+}
+
+export interface NewAccount {
+  readonly username: string;
+  readonly role: Role;
+  readonly passwordHash: string;
+  readonly mustChangePassword: boolean;
+  readonly createdAt: string;
+}
+
+export interface ServerKeyRow {
+  readonly kid: string;
+  readonly privateJwk: string;
+  readonly publicJwk: string;
+  readonly createdAt: string;
+}
+
+export interface Device {
+  readonly kid: string;
+  readonly publicJwk: string;
+  readonly name: string;
+  readonly enrolledAt: string;
+  readonly revokedAt: string | null;
+  readonly lastContactAt: string | null;
+  /** Outbox length the device last reported (in a pull), with the time of its oldest waiting record. */
+  readonly reportedQueue: number | null;
+  readonly reportedOldestAt: string | null;
+  readonly reportedAt: string | null;
+}
+
+export interface EnrolmentCodeRow {
+  readonly codeHash: string;
+  readonly createdBy: number;
+  readonly createdAt: string;
+  readonly expiresAt: string;
+}
+
+export interface EnrolAttempt {
+  readonly codeHash: string;
+  readonly now: string;
+  readonly kid: string;
+  readonly publicJwk: string;
+  readonly name: string;
+}
+
+export type EnrolOutcome =
+  | { readonly kind: 'enrolled' | 'alreadyEnrolled'; readonly device: Device }
+  | { readonly kind: 'codeUnknown' | 'codeExpired' | 'codeUsed' | 'revoked' };
+
+/** One record of a batch as the sync layer judged it, ready to store. */
+export type PlannedRecord =
+  | {
+      readonly index: number;
+      readonly status: 'valid';
+      readonly id: string;
+      readonly kind: string;
+      readonly schemaVersion: number;
+      readonly seamId: string;
+      readonly seq: number;
+      /** Canonical JSON of the body: equal content gives equal text. */
+      readonly body: string;
+      readonly createdAt: string;
+    }
+  | {
+      readonly index: number;
+      readonly status: 'parked';
+      readonly id: string;
+      readonly kind: string;
+      readonly schemaVersion: number;
+      readonly seamId: string | null;
+      /** Canonical JSON of the whole record as sent, less its transport members (seq, createdAt). */
+      readonly record: string;
+    }
+  | { readonly index: number; readonly status: 'rejected'; readonly id: string | null; readonly reason: string };
+
+export interface BatchPlan {
+  readonly batchId: string;
+  readonly deviceKid: string;
+  readonly deviceSeq: number;
+  /** SHA-256 of the payload bytes: the same batch id must always come with the same payload. */
+  readonly payloadSha256: string;
+  /** The request body exactly as received (the JWS), kept for audit. */
+  readonly jws: string;
+  readonly receivedAt: string;
+  readonly records: readonly PlannedRecord[];
+  readonly deviceGrades: readonly { readonly seamId: string; readonly grade: string }[];
+}
+
+export type BatchOutcome =
+  | {
+      readonly kind: 'applied';
+      readonly replay: boolean;
+      readonly results: readonly RecordResult[];
+      /** Seams that gained records in this apply: the ones to re-grade. */
+      readonly seamsChanged: readonly string[];
+      /** Records whose id was already held with other content: each also logged as a security event. */
+      readonly conflicts: readonly string[];
+    }
+  | { readonly kind: 'conflict'; readonly reason: string };
+
+export interface StoredRecord {
+  /** The server's receive order. */
+  readonly receiveSeq: number;
+  readonly id: string;
+  readonly kind: string;
+  readonly schemaVersion: number;
+  readonly seamId: string;
+  readonly deviceKid: string | null;
+  readonly batchId: string | null;
+  readonly deviceSeq: number;
+  readonly body: string;
+  readonly deviceCreatedAt: string;
+  readonly receivedAt: string;
+}
+
+export interface ParkedRecord {
+  readonly id: string;
+  readonly kind: string;
+  readonly schemaVersion: number;
+  readonly seamId: string | null;
+  readonly deviceKid: string;
+  readonly batchId: string;
+  readonly record: string;
+  readonly receivedAt: string;
+}
+
+export interface SeamRow {
+  readonly id: string;
+  readonly namespace: SeamNamespace;
+  /** The set-up (canonical JSON of a Seam) the supervisor or the demo gave; devices' set-ups are records. */
+  readonly setup: string;
+  readonly createdAt: string;
+}
+
+export interface SeamMaterial {
+  readonly seam: SeamRow | undefined;
+  readonly records: readonly StoredRecord[];
+}
+
+export interface ServerGrade {
+  readonly seamId: string;
+  /** The newest receive sequence number folded in: an older grade never overwrites a newer one. */
+  readonly basedOn: number;
+  readonly gradedAt: string;
+  readonly state: string;
+  readonly levelMet: string | null;
+  readonly meetsRequired: boolean | null;
+  /** JSON: the grade summary and any records left out of it, with reasons. */
+  readonly summary: string;
+}
+
+export interface DeviceGradeRow {
+  readonly seamId: string;
+  readonly deviceKid: string;
+  readonly batchSeq: number;
+  readonly grade: string;
+}
+
+export interface ChangeRow {
+  readonly seq: number;
+  readonly kind: 'assignment' | 'decision';
+  readonly itemId: string;
+  readonly seamId: string;
+  /** The device an assignment is for; null for a decision (it goes to every device that worked on the seam). */
+  readonly deviceKid: string | null;
+  readonly item: string;
+  readonly createdAt: string;
+}
+
+export interface NewChange {
+  readonly kind: ChangeRow['kind'];
+  readonly itemId: string;
+  readonly seamId: string;
+  readonly deviceKid: string | null;
+  readonly item: string;
+  readonly createdAt: string;
+  readonly createdBy: number | null;
+}
+
+export interface SecurityEvent {
+  readonly id: number;
+  readonly at: string;
+  readonly kind: string;
+  readonly deviceKid: string | null;
+  readonly detail: string;
+}
+
+export interface BatchRow {
+  readonly batchId: string;
+  readonly deviceKid: string;
+  readonly deviceSeq: number;
+  readonly payloadSha256: string;
+  readonly jws: string;
+  readonly recordCount: number;
+  readonly receivedAt: string;
+}
+
+export interface Storage {
+  readonly dialect: string;
+  close(): Promise<void>;
+
+  // Accounts and sessions
+  countAccounts(): Promise<number>;
+  createAccount(account: NewAccount): Promise<Account>;
+  findAccount(username: string): Promise<AccountWithHash | undefined>;
+  setPassword(accountId: number, passwordHash: string, mustChangePassword: boolean): Promise<void>;
+  createSession(tokenHash: string, accountId: number, createdAt: string, expiresAt: string): Promise<void>;
+  /** The account of an unexpired session. */
+  findSession(tokenHash: string, now: string): Promise<Account | undefined>;
+  deleteSession(tokenHash: string): Promise<void>;
+  /** Ends every session of the account (after a password change), except the one given. */
+  deleteSessionsOf(accountId: number, keepTokenHash: string | null): Promise<void>;
+
+  // The server's signing key (made on first start)
+  getServerKey(): Promise<ServerKeyRow | undefined>;
+  /** Stores the key unless one exists already; returns the key in force. */
+  saveServerKey(key: ServerKeyRow): Promise<ServerKeyRow>;
+
+  // Devices
+  createEnrolmentCode(code: EnrolmentCodeRow): Promise<void>;
+  /** Uses the code and enrols the device in one transaction. */
+  enrolDevice(attempt: EnrolAttempt): Promise<EnrolOutcome>;
+  getDevice(kid: string): Promise<Device | undefined>;
+  listDevices(): Promise<Device[]>;
+  renameDevice(kid: string, name: string): Promise<boolean>;
+  revokeDevice(kid: string, at: string): Promise<boolean>;
+  touchDevice(kid: string, at: string, report?: { queued: number; oldestAt: string | null }): Promise<void>;
+
+  // Pull nonces: issued, then accepted once before they expire
+  issueNonce(nonce: string, expiresAt: string): Promise<void>;
+  consumeNonce(nonce: string, now: string): Promise<boolean>;
+
+  // Sync
+  applyBatch(plan: BatchPlan): Promise<BatchOutcome>;
+  getBatch(batchId: string): Promise<BatchRow | undefined>;
+  recordSecurityEvent(at: string, kind: string, deviceKid: string | null, detail: string): Promise<void>;
+  listSecurityEvents(limit: number): Promise<SecurityEvent[]>;
+  listRecords(filter: { seamId?: string; deviceKid?: string }): Promise<StoredRecord[]>;
+  listParked(): Promise<ParkedRecord[]>;
+  /** Records added by the server itself (the demo yard): no device, no batch. */
+  insertServerRecords(records: readonly Omit<StoredRecord, 'receiveSeq' | 'deviceKid' | 'batchId'>[]): Promise<number>;
+
+  // Seams and grades
+  putSeam(seam: SeamRow, createdBy: number | null): Promise<'created' | 'updated'>;
+  getSeam(id: string): Promise<SeamRow | undefined>;
+  listSeamIds(): Promise<string[]>;
+  /** What a grade is computed from: the seam's set-up given on the server, and every record of the seam. */
+  seamMaterial(seamId: string): Promise<SeamMaterial>;
+  saveServerGrade(grade: ServerGrade): Promise<void>;
+  getServerGrade(seamId: string): Promise<ServerGrade | undefined>;
+  listDeviceGrades(seamId: string): Promise<DeviceGradeRow[]>;
+
+  // What devices pull
+  addChange(change: NewChange): Promise<ChangeRow>;
+  /**
+   * The device's changes after `afterSeq`, oldest first, at most `limit`; `through` is the last change number
+   * the answer covers (the next cursor), whether or not it was for this device.
+   */
+  changesFor(kid: string, afterSeq: number, limit: number): Promise<{ changes: ChangeRow[]; through: number; more: boolean }>;
+
+  /** Every row of the record tables in a fixed order, for a canonical dump (tests and audits). */
+  dumpRecordTables(): Promise<Record<string, unknown[]>>;
+}
