@@ -33,7 +33,12 @@ type FileParts = Pick<SeamFile, 'seam' | 'rounds' | 'readings'>;
 
 /** The context of a validated seam: O(n) once. */
 export function entryContext(file: FileParts): EntryContext {
-  const ctx: EntryContext = { seam: file.seam, rounds: file.rounds, byId: new Map(), supersededBy: new Map() };
+  const ctx: EntryContext = {
+    seam: file.seam,
+    rounds: file.rounds,
+    byId: new Map(),
+    supersededBy: new Map(),
+  };
   for (const r of file.readings) addToContext(ctx, r);
   return ctx;
 }

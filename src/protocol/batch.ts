@@ -4,6 +4,7 @@ import * as v from 'valibot';
 import { LEVELS } from '../domain/index.js';
 import { choice, count, isoTimestamp, obj, text } from '../domain/model/schema-kit.js';
 import { canonicalJson } from './canonical-json.js';
+import { ProtocolError } from './errors.js';
 import { jwsBody, signJws, type FlattenedJws } from './jws.js';
 import { parsePayload, protocolField } from './payload.js';
 import { randomUuid } from './platform.js';
@@ -72,10 +73,17 @@ export const batchReplySchema = v.object({
       index: v.number(),
       id: v.nullable(v.string()),
       status: v.picklist(RECORD_STATUSES),
-      reason: v.optional(v.string()),
+      reason: v.exactOptional(v.string()),
     }),
   ),
 });
+
+/** The server's reply to a batch, checked (device side). */
+export function parseBatchReply(input: unknown): BatchReply {
+  const parsed = v.safeParse(batchReplySchema, input);
+  if (!parsed.success) throw new ProtocolError('malformed', 'the batch reply is not in the expected form');
+  return parsed.output;
+}
 
 /**
  * Whether the device may take the record out of its outbox: the server holds it (accepted, duplicate, or parked

@@ -2,11 +2,7 @@
 // Gauge screen's readExaminer, forgotten with an empty name, and refused beyond the record's limits.
 import { describe, expect, it } from 'vitest';
 import { parseSeamFile } from '../../src/domain/index.js';
-import {
-  checkExaminer,
-  readExaminer,
-  saveExaminer,
-} from '../../src/app/screens/gauge/examiner.js';
+import { checkExaminer, readExaminer, saveExaminer } from '../../src/app/screens/gauge/examiner.js';
 import { buttSeam, reading, seamFile } from '../support/seam-builder.js';
 
 function memory() {
@@ -48,7 +44,9 @@ describe('saving the examiner', () => {
   it('what it saves is an examiner the reading record accepts', () => {
     const store = memory();
     const examiner = saveExaminer(store, { name: 'x'.repeat(80), qualification: 'q'.repeat(120) });
-    const file = seamFile(buttSeam(), [reading({ toeAngle: 150 }, { toe: { plate: 1, side: 'face' }, ...(examiner ? { examiner } : {}) })]);
+    const file = seamFile(buttSeam(), [
+      reading({ toeAngle: 150 }, { toe: { plate: 1, side: 'face' }, ...(examiner ? { examiner } : {}) }),
+    ]);
     expect(parseSeamFile(file).ok).toBe(true);
   });
 });
@@ -61,7 +59,9 @@ describe('checking what was typed', () => {
   });
 
   it('refuses what the record cannot hold, and a qualification with no name', () => {
-    expect(checkExaminer({ name: 'x'.repeat(81), qualification: '' })).toEqual({ name: 'at most 80 characters' });
+    expect(checkExaminer({ name: 'x'.repeat(81), qualification: '' })).toEqual({
+      name: 'at most 80 characters',
+    });
     expect(checkExaminer({ name: 'A', qualification: 'q'.repeat(121) })).toEqual({
       qualification: 'at most 120 characters',
     });

@@ -23,12 +23,18 @@ describe('mapping validator paths to form fields', () => {
 describe('checking the new reading against the seam', () => {
   it('a valid reading has no problems', () => {
     expect(
-      checkNewReading(entryContext(file), reading({ toeAngle: 160 }, { id: 'n', toe: { plate: 2, side: 'face' } })),
+      checkNewReading(
+        entryContext(file),
+        reading({ toeAngle: 160 }, { id: 'n', toe: { plate: 2, side: 'face' } }),
+      ),
     ).toEqual({});
   });
 
   it('a toe angle below 90° is reported at the toe angle field (vocabulary range 90–180)', () => {
-    const p = checkNewReading(entryContext(file), reading({ toeAngle: 75 }, { id: 'n', toe: { plate: 2, side: 'face' } }));
+    const p = checkNewReading(
+      entryContext(file),
+      reading({ toeAngle: 75 }, { id: 'n', toe: { plate: 2, side: 'face' } }),
+    );
     expect(Object.keys(p)).toEqual(['toeAngle']);
     expect(p.toeAngle).toMatch(/^must be at least 90°.*got 75$/);
   });
@@ -42,7 +48,10 @@ describe('checking the new reading against the seam', () => {
   });
 
   it('a cap height without its width asks for the width in field words, not record names', () => {
-    const p = checkNewReading(entryContext(file), reading({ reinforcementHeight: 2 }, { id: 'n', side: 'face' }));
+    const p = checkNewReading(
+      entryContext(file),
+      reading({ reinforcementHeight: 2 }, { id: 'n', side: 'face' }),
+    );
     expect(p.reinforcementWidth).toBe(
       'is needed with cap height: the limit is 1 mm + k·b, with b the width in the same cross-section',
     );

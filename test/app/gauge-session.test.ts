@@ -8,8 +8,11 @@ import {
   currentReadings,
   loadSession,
   planUndo,
+  planUndoIn,
   saveSession,
+  SESSION_LIMIT,
   sessionKey,
+  withEntry,
   type SessionEntry,
 } from '../../src/app/screens/gauge/session.js';
 import { buttSeam, reading, seamFile } from '../support/seam-builder.js';
@@ -88,5 +91,33 @@ describe('the session list survives a reload of the tab', () => {
     expect(loadSession(store, 'seam-3')).toEqual([]);
     mem.set(sessionKey('seam-4'), JSON.stringify(['old-style-id', { id: 7 }, { id: 'ok' }]));
     expect(loadSession(store, 'seam-4')).toEqual([entry('ok')]);
+  });
+});
+
+describe('a long session', () => {
+  it(`keeps the latest ${SESSION_LIMIT} entries, so saving it does not grow with the session`, () => {
+    let session: SessionEntry[] = [];
+    for (let i = 0; i < SESSION_LIMIT + 5; i++) session = withEntry(session, entry(`r${i}`));
+    expect(session).toHaveLength(SESSION_LIMIT);
+    expect(session[0]).toEqual(entry('r5'));
+    expect(session[session.length - 1]).toEqual(entry(`r${SESSION_LIMIT + 4}`));
+    const mem = new Map<string, string>();
+    const store = {
+      getItem: (k: string) => mem.get(k) ?? null,
+      setItem: (k: string, v: string) => void mem.set(k, v),
+    };
+    saveSession(store, 'seam-1', [entry('old'), ...session]);
+    expect(loadSession(store, 'seam-1')).toEqual(session);
+  });
+
+  it('plans the same undo from readings indexed by id as from the list of readings', () => {
+    const readings = [a, b, fixB];
+    const byId = new Map(readings.map((r) => [r.id, r]));
+    const supersededBy = new Map([['b', 'fixB']]);
+    const session = [entry('a'), entry('b'), entry('fixB', true)];
+    expect(planUndoIn(session, { byId, supersededBy })).toEqual(planUndo(session, readings));
+    expect(planUndoIn(session.slice(0, 2), { byId, supersededBy })).toEqual(
+      planUndo(session.slice(0, 2), readings),
+    );
   });
 });

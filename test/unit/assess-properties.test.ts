@@ -3,6 +3,19 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   adequacyOf,
+  anthesButtInside,
+  anthesButtOutside,
+  anthesCruciformInside,
+  anthesCruciformOutside,
+  effectiveFactors,
+  effectiveMax,
+  effectiveMaxOf,
+  kiyakInside,
+  kiyakOutside,
+  lawrenceInside,
+  lawrenceOutside,
+  notchNumbers,
+  rangeOf,
   assessSeam,
   confidenceHalfWidth,
   cyclesToFailure,
@@ -319,6 +332,58 @@ describe('toe ranking', () => {
         },
       ),
       { numRuns: 100 },
+    );
+  });
+});
+
+describe('fast paths agree with the described results', () => {
+  const g = fc.record({
+    joint: fc.constantFrom('butt' as const, 'fillet' as const),
+    t: num(0.5, 60),
+    flank: num(-5, 95),
+    rho: num(0.005, 20),
+    h: fc.option(num(0, 15), { nil: undefined }),
+    a: fc.option(num(0.5, 40), { nil: undefined }),
+    b: num(-2, 3),
+  });
+
+  it('each formula’s validity check without messages says the same as its list of messages', () => {
+    fc.assert(
+      fc.property(g, num(0, 2), (x, s) => {
+        const ratio = x.t / x.rho;
+        expect(anthesButtInside(ratio, x.flank)).toBe(anthesButtOutside(ratio, x.flank).length === 0);
+        const aOverT = (x.a ?? 5) / x.t;
+        for (const sOverT of [0, s]) {
+          expect(anthesCruciformInside(ratio, x.flank, aOverT, sOverT)).toBe(
+            anthesCruciformOutside(ratio, x.flank, aOverT, sOverT).length === 0,
+          );
+        }
+        const h = x.h ?? 1;
+        expect(kiyakInside(x.flank, h, x.t, x.rho)).toBe(kiyakOutside(x.flank, h, x.t, x.rho).length === 0);
+        expect(lawrenceInside(x.flank, x.t, x.rho)).toBe(lawrenceOutside(x.flank, x.t, x.rho).length === 0);
+      }),
+      RUNS,
+    );
+  });
+
+  it('the allocation-free toe score equals the top of the described effective-factor range', () => {
+    fc.assert(
+      fc.property(g, (x) => {
+        fc.pre(x.flank >= 0 && x.flank < 90);
+        const geometry = {
+          t: x.t,
+          flankDeg: x.flank,
+          rho: x.rho,
+          ...(x.h === undefined ? {} : { h: x.h }),
+          ...(x.a === undefined ? {} : { a: x.a }),
+        };
+        const described = toeNotchFactors(x.joint, geometry);
+        const eff = effectiveFactors(described, x.b);
+        const top = rangeOf(eff.values, eff.inRange)?.max;
+        expect(effectiveMaxOf(x.joint, geometry, x.b)).toBe(top);
+        expect(effectiveMax(notchNumbers(x.joint, geometry), x.b)).toBe(top);
+      }),
+      RUNS,
     );
   });
 });

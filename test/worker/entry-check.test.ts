@@ -55,7 +55,11 @@ const cases: [string, SeamFile, Reading][] = [
   ['a correction across rounds', base, reading({ toeAngle: 100 }, { id: 'n', toe: toe1, supersedes: 'r2' })],
   ['a correction of nothing', base, reading({ toeAngle: 100 }, { id: 'n', toe: toe1, supersedes: 'gone' })],
   ['a withdrawal', base, reading({}, { id: 'n', supersedes: 'old', withdrawn: true })],
-  ['a withdrawal with values', base, reading({ toeAngle: 100 }, { id: 'n', supersedes: 'old', withdrawn: true })],
+  [
+    'a withdrawal with values',
+    base,
+    reading({ toeAngle: 100 }, { id: 'n', supersedes: 'old', withdrawn: true }),
+  ],
   ['a fillet seam without a throat', seamFile(noThroat, []), reading({ throat: 4 }, { id: 'n' })],
 ];
 
@@ -69,7 +73,9 @@ describe('checking one new reading against its seam', () => {
     const [, file, good] = cases[0] as [string, SeamFile, Reading];
     expect(checkEntry(entryContext(file), good, 4)).toEqual([]);
     const [, , bad] = cases[1] as [string, SeamFile, Reading];
-    expect(checkEntry(entryContext(base), bad, 4).map((p) => p.path)).toEqual(['readings[4].values.toeAngle']);
+    expect(checkEntry(entryContext(base), bad, 4).map((p) => p.path)).toEqual([
+      'readings[4].values.toeAngle',
+    ]);
   });
 });
 
@@ -131,9 +137,13 @@ describe('the copy the Gauge screen extends', () => {
   });
 
   it('re-checks the whole seam when its rounds changed, and grades the answered checklist', () => {
-    const file = valid(seamFile(buttSeam(), [reading({ toeAngle: 155 }, { id: 'c1', toe: toe1 })], [
-      { number: 1, kind: 'first', checklist: {} },
-    ]));
+    const file = valid(
+      seamFile(
+        buttSeam(),
+        [reading({ toeAngle: 155 }, { id: 'c1', toe: toe1 })],
+        [{ number: 1, kind: 'first', checklist: {} }],
+      ),
+    );
     const opened = api.open(file, null);
     expect(opened.ok === true && opened.standing.state).toBe('incomplete');
     const rounds: Round[] = [{ number: 1, kind: 'first', checklist: completeChecklist() }];
@@ -151,9 +161,13 @@ describe('the copy the Gauge screen extends', () => {
     const reply = api.update({ seam: start.seam, rounds: start.rounds, base: 0, added: [bad] });
     expect(reply).toEqual({
       ok: false,
-      problems: [{ path: 'readings[0].position', message: "lies beyond the seam's length of 1000 mm; got 5000" }],
+      problems: [
+        { path: 'readings[0].position', message: "lies beyond the seam's length of 1000 mm; got 5000" },
+      ],
     });
-    expect(api.update({ seam: start.seam, rounds: start.rounds, base: 0, added: [] })).toEqual({ ok: 'resync' });
+    expect(api.update({ seam: start.seam, rounds: start.rounds, base: 0, added: [] })).toEqual({
+      ok: 'resync',
+    });
   });
 
   it('gives a seam standing without keeping a copy, and refuses what the validator refuses', () => {

@@ -34,20 +34,21 @@ export interface Surface {
 }
 
 /** The surfaces of the loaded plate(s) at the weld whose secondary bending the assessment tracks. */
+const BUTT_SURFACES: readonly Surface[] = Object.freeze([
+  { plate: 1, surface: 'face' },
+  { plate: 2, surface: 'face' },
+  { plate: 1, surface: 'root' },
+  { plate: 2, surface: 'root' },
+] as const);
+const MAIN_PLATE_SURFACES: readonly Surface[] = Object.freeze([
+  { plate: 1, surface: 'face' },
+  { plate: 1, surface: 'root' },
+] as const);
+const NO_SURFACES: readonly Surface[] = Object.freeze([]);
+
 export function surfacesOf(joint: JointType): readonly Surface[] {
-  if (joint === 'butt') {
-    return [
-      { plate: 1, surface: 'face' },
-      { plate: 2, surface: 'face' },
-      { plate: 1, surface: 'root' },
-      { plate: 2, surface: 'root' },
-    ];
-  }
-  if (joint === 'lap') return [];
-  return [
-    { plate: 1, surface: 'face' },
-    { plate: 1, surface: 'root' },
-  ];
+  if (joint === 'butt') return BUTT_SURFACES;
+  return joint === 'lap' ? NO_SURFACES : MAIN_PLATE_SURFACES;
 }
 
 /**
@@ -159,25 +160,30 @@ export interface BendingState {
 }
 
 /** The worst signed secondary bending per surface from the extreme misalignments (linear and angular added). */
+function linearAt(setup: Setup, s: Surface, m: Measured | null): number {
+  return m ? linearSign(setup.joint, s, m.value) * deltaAxial(setup, s.plate, Math.abs(m.value)) : -Infinity;
+}
+
+/** The signed angular term on a surface; NaN when the kink's km cannot be given. */
+function angularAt(setup: Setup, s: Surface, m: Measured | null): number {
+  if (!m) return -Infinity;
+  const d = angularDelta(setup, s.plate, Math.abs(m.value));
+  return Number.isNaN(d) ? NaN : angularSign(setup.joint, s, m.value) * d;
+}
+
+/** The largest of two terms, a missing one (−∞) or an unassessable one (NaN) counting as none. */
+const larger = (a: number, b: number): number =>
+  Math.max(Number.isNaN(a) ? -Infinity : a, Number.isNaN(b) ? -Infinity : b);
+
+/** The worst signed secondary bending per surface from the extreme misalignments (linear and angular added). */
 export function bendingOf(setup: Setup, mis: MisalignmentInputs): BendingState {
-  const surfaces = surfacesOf(setup.joint);
   let angularProblem: string | null = null;
-  const b = surfaces.map((s) => {
-    let lin = -Infinity;
-    for (const m of [mis.eHi, mis.eLo]) {
-      if (!m) continue;
-      lin = Math.max(lin, linearSign(setup.joint, s, m.value) * deltaAxial(setup, s.plate, Math.abs(m.value)));
-    }
-    let an = -Infinity;
-    for (const m of [mis.aHi, mis.aLo]) {
-      if (!m) continue;
-      const d = angularDelta(setup, s.plate, Math.abs(m.value));
-      if (Number.isNaN(d)) {
-        angularProblem ??= setup.armsKnown ? BUCKLED : NO_ARMS;
-        continue;
-      }
-      an = Math.max(an, angularSign(setup.joint, s, m.value) * d);
-    }
+  const b = surfacesOf(setup.joint).map((s) => {
+    const lin = larger(linearAt(setup, s, mis.eHi), linearAt(setup, s, mis.eLo));
+    const hi = angularAt(setup, s, mis.aHi);
+    const lo = angularAt(setup, s, mis.aLo);
+    if (Number.isNaN(hi) || Number.isNaN(lo)) angularProblem = setup.armsKnown ? BUCKLED : NO_ARMS;
+    const an = larger(hi, lo);
     return (lin === -Infinity ? 0 : lin) + (an === -Infinity ? 0 : an);
   });
   return { b, angularProblem };

@@ -31,14 +31,28 @@ export function roundReadings(file: SeamFile, grade: SeamGrade): RoundReadings {
 
 export const positionOf = (r: Reading): number => r.position ?? r.start ?? 0;
 
+const resolutionBases = new Map<string, string>();
+
+/** "instrument X resolution", made once per instrument id. */
+function instrumentBasis(id: string): string {
+  let basis = resolutionBases.get(id);
+  if (basis === undefined) {
+    basis = `instrument ${id} resolution`;
+    if (resolutionBases.size < 10_000) resolutionBases.set(id, basis);
+  }
+  return basis;
+}
+
+const DEFAULT_BASIS = {
+  mm: `default ${DEFAULT_RESOLUTION.mm} mm (resolution not recorded)`,
+  deg: `default ${DEFAULT_RESOLUTION.deg} ° (resolution not recorded)`,
+} as const;
+
 export function resolutionOf(r: Reading, unit: 'mm' | 'deg'): { value: number; basis: string } {
   const v = unit === 'mm' ? r.instrument.resolutionMm : r.instrument.resolutionDeg;
   return v === undefined
-    ? {
-        value: DEFAULT_RESOLUTION[unit],
-        basis: `default ${DEFAULT_RESOLUTION[unit]} ${unit === 'mm' ? 'mm' : '°'} (resolution not recorded)`,
-      }
-    : { value: v, basis: `instrument ${r.instrument.id} resolution` };
+    ? { value: DEFAULT_RESOLUTION[unit], basis: DEFAULT_BASIS[unit] }
+    : { value: v, basis: instrumentBasis(r.instrument.id) };
 }
 
 /** The mid-plane offset e a reading gives (the gauge may read a surface step), or undefined. */
@@ -82,14 +96,22 @@ export function misalignmentInputs(setup: Setup, readings: readonly Reading[]): 
 
 type SideKey = 'reinforcementHeight' | 'convexity' | 'throat';
 
-interface SideEntry {
-  readonly atPosition: Map<number, Reading>;
-  largest: Reading | undefined;
+export interface SideValue {
+  readonly value: number;
+  readonly basis: string;
 }
+
+interface SideEntry {
+  readonly atPosition: Map<number, SideValue>;
+  largest: SideValue | undefined;
+}
+
+const SAME_READING = 'same reading';
 
 /**
  * Values measured on one side of the weld, to pair with a toe reading that lacks them: the same reading first,
- * then a reading on that side at the same position, then the side's largest (conservative for Kt).
+ * then a reading on that side at the same position, then the side's largest (conservative for Kt). The answers
+ * are made once per side reading, so pairing many toe readings allocates nothing.
  */
 export class SideValues {
   private readonly index = new Map<string, SideEntry>();
@@ -108,25 +130,19 @@ export class SideValues {
           this.index.set(id, entry);
         }
         const pos = positionOf(x);
-        if (!entry.atPosition.has(pos)) entry.atPosition.set(pos, x);
-        if (!entry.largest || v > (entry.largest.values[key] as number)) entry.largest = x;
+        if (!entry.atPosition.has(pos)) entry.atPosition.set(pos, { value: v, basis: `reading ${x.id} at the same position` });
+        if (!entry.largest || v > entry.largest.value) {
+          entry.largest = { value: v, basis: `largest on the ${key === 'throat' ? 'seam' : `${side} side`} (reading ${x.id})` };
+        }
       }
     }
   }
 
-  get(r: Reading, side: 'face' | 'root', key: SideKey): { value: number; basis: string } | undefined {
+  get(r: Reading, side: 'face' | 'root', key: SideKey): SideValue | undefined {
     const own = r.values[key];
-    if (own !== undefined) return { value: own, basis: 'same reading' };
-    const entry = this.index.get(`${key}|${key === 'throat' ? 'any' : side}`);
+    if (own !== undefined) return { value: own, basis: SAME_READING };
+    const entry = this.index.get(key === 'throat' ? 'throat|any' : `${key}|${side}`);
     if (!entry) return undefined;
-    const same = entry.atPosition.get(positionOf(r));
-    if (same) return { value: same.values[key] as number, basis: `reading ${same.id} at the same position` };
-    const big = entry.largest;
-    return big
-      ? {
-          value: big.values[key] as number,
-          basis: `largest on the ${key === 'throat' ? 'seam' : `${side} side`} (reading ${big.id})`,
-        }
-      : undefined;
+    return entry.atPosition.get(positionOf(r)) ?? entry.largest;
   }
 }

@@ -4,7 +4,7 @@ import type { SeamGrade } from '../grade/seam.js';
 import { readingSide } from '../model/joint.js';
 import { PARAMETER_NAMES, PARAMETERS, type ParameterName } from '../model/parameters.js';
 import type { Edition, Reading } from '../model/seam-file.js';
-import { adequacyOf, type SamplePoint } from '../sampling/adequacy.js';
+import { adequacyOf } from '../sampling/adequacy.js';
 import { DEFAULT_RESOLUTION, midPlaneE, positionOf } from './readings.js';
 import type { AssessOptions, Setup } from './setup.js';
 import type { SamplingAssessment } from './types.js';
@@ -70,6 +70,21 @@ function placeOf(name: ParameterName, r: Reading): number {
   return 8;
 }
 
+const NONE: ReadingGrade['imperfections'] = [];
+
+interface Group {
+  readonly name: ParameterName;
+  readonly place: string;
+  readonly points: {
+    readonly readingIds: string[];
+    readonly positions: number[];
+    readonly values: number[];
+    readonly margins: (number | null)[];
+    readonly resolutions: (number | null)[];
+  };
+  required: string | null;
+}
+
 const PARAMETER_INDEX = new Map(PARAMETER_NAMES.map((n, i) => [n, i]));
 
 /** Sampling adequacy per measured parameter and place on the seam, from the round's at-pitch readings. */
@@ -80,15 +95,19 @@ export function samplingSection(
   readings: readonly Reading[],
   options: AssessOptions,
 ): SamplingAssessment {
-  const graded = new Map<string, ReadingGrade>();
   const roundGrade = grade.rounds.find((r) => r.round === round);
-  for (const rg of roundGrade?.readings ?? []) graded.set(rg.readingId, rg);
+  const gradedReadings = roundGrade?.readings ?? [];
+  // The grade lists the round's readings in the same order (by id): use that, and a map only if it differs.
+  const sameOrder =
+    gradedReadings.length === readings.length && gradedReadings.every((g, i) => g.readingId === readings[i]?.id);
+  const graded = sameOrder ? null : new Map(gradedReadings.map((g) => [g.readingId, g]));
   const columnsOnly = !!roundGrade && roundGrade.readingCount > 0 && roundGrade.readings.length === 0;
   const rows = rowParameter(setup.seam.acceptance.edition);
-  const groups = new Map<number, { name: ParameterName; place: string; points: SamplePoint[]; required: string | null }>();
-  for (const r of readings) {
-    if (r.sampling !== 'atPitch') continue;
-    const imperfections = graded.get(r.id)?.imperfections ?? [];
+  const groups = new Map<number, Group>();
+  readings.forEach((r, index) => {
+    if (r.sampling !== 'atPitch') return;
+    const rg: ReadingGrade | undefined = graded ? graded.get(r.id) : gradedReadings[index];
+    const imperfections = rg?.imperfections ?? NONE;
     const id = r.id;
     const position = positionOf(r);
     const resMm = r.instrument.resolutionMm ?? null;
@@ -103,7 +122,12 @@ export function samplingSection(
       const key = (PARAMETER_INDEX.get(name) as number) * PLACES.length + place;
       let g = groups.get(key);
       if (!g) {
-        g = { name, place: PLACES[place] as string, points: [], required: null };
+        g = {
+          name,
+          place: PLACES[place] as string,
+          points: { readingIds: [], positions: [], values: [], margins: [], resolutions: [] },
+          required: null,
+        };
         groups.set(key, g);
       }
       let margin: number | null = null;
@@ -113,16 +137,22 @@ export function samplingSection(
         g.required ??= imp.required;
       }
       const resolution = PARAMETERS[name].unit === 'mm' ? resMm : resDeg;
-      g.points.push({ readingId: id, position, value, margin, resolution });
+      const c = g.points;
+      c.readingIds.push(id);
+      c.positions.push(position);
+      c.values.push(value);
+      c.margins.push(margin);
+      c.resolutions.push(resolution);
     }
-  }
+  });
+
   const gradedParameters = new Set(rows.values());
   const parameters = [...groups.values()].map((g) => {
     const unit = PARAMETERS[g.name].unit;
     const hasRow = gradedParameters.has(g.name);
     const riskUnavailable = columnsOnly
       ? 'the grade holds columns only: grade with reading objects to estimate the risk'
-      : !hasRow || g.points.every((p) => p.margin === null)
+      : !hasRow || g.points.margins.every((m) => m === null)
         ? 'no ISO 5817 limit applies to this value here'
         : undefined;
     const target = options.samplingTargets?.[g.name];

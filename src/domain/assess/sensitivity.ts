@@ -32,33 +32,7 @@ function lifeFrom(b: readonly number[], fixed: Fixed): number | null {
   return cyclesToFailure(fixed.stressRange, fixed.fatTimesThickness / kmEff);
 }
 
-/**
- * Life and toe factors after a change. A change of one toe's geometry leaves km, life and the other toes alone;
- * a change of misalignment leaves every toe's notch factors alone and only moves the secondary bending.
- */
-function evaluate(
-  setup: Setup,
-  base: Outcome | null,
-  notches: readonly NotchNumbers[],
-  mis: MisalignmentInputs,
-  picks: readonly ToePick[],
-  changedToe: number | null,
-  fixed: Fixed,
-): Outcome {
-  if (base && changedToe !== null) {
-    const p = picks[changedToe] as ToePick;
-    const toes = [...base.toes];
-    toes[changedToe] = toeScore(setup, p.geometry, base.b[p.surface] ?? 0);
-    return { life: base.life, toes, b: base.b };
-  }
-  const { b } = bendingOf(setup, mis);
-  return {
-    life: lifeFrom(b, fixed),
-    toes: picks.map((p, i) => effectiveMax(notches[i] as NotchNumbers, b[p.surface] ?? 0)),
-    b,
-  };
-}
-
+/** A measured input to move: a misalignment (moves km, life and every toe) or one toe's geometry (moves that toe). */
 interface Input {
   readonly input: string;
   readonly where: string;
@@ -67,99 +41,107 @@ interface Input {
   readonly unit: 'mm' | 'deg';
   readonly uncertainty: number;
   readonly basis: string;
-  readonly apply: (d: number) => { mis: MisalignmentInputs; picks: readonly ToePick[] };
-  /** The toe whose geometry the input is, or null for a misalignment. */
-  readonly toe: number | null;
+  readonly moveMisalignment?: (d: number) => MisalignmentInputs;
+  readonly moveToe?: { readonly index: number; readonly to: (d: number) => ToeGeometry };
 }
 
-function misalignmentInputsToVary(mis: MisalignmentInputs, picks: readonly ToePick[]): Input[] {
+function misalignmentInputs(mis: MisalignmentInputs): Input[] {
   const out: Input[] = [];
-  const add = (
-    key: keyof MisalignmentInputs,
-    m: Measured | null,
-    name: string,
-    unit: 'mm' | 'deg',
-    where: string,
-  ): void => {
+  const add = (kind: 'e' | 'a', m: Measured | null, where: string): void => {
+    const name = kind === 'e' ? 'linear misalignment e' : 'angular misalignment';
     if (!m || out.some((x) => x.readingId === m.readingId && x.input === name)) return;
     out.push({
       input: name,
       where: `${where} at ${m.position} mm`,
       readingId: m.readingId,
       value: m.value,
-      unit,
+      unit: kind === 'e' ? 'mm' : 'deg',
       uncertainty: m.resolution,
       basis: m.resolutionBasis,
-      toe: null,
-      apply: (d) => {
-        const next: { -readonly [K in keyof MisalignmentInputs]: MisalignmentInputs[K] } = { ...mis };
-        // The same reading may be both the highest and the lowest of its kind (e… or a…): move it in both places.
-        for (const k of ['eHi', 'eLo', 'aHi', 'aLo'] as const) {
-          const x = mis[k];
-          if (x && x.readingId === m.readingId && k[0] === key[0]) next[k] = { ...x, value: x.value + d };
-        }
-        return { mis: next, picks };
+      moveMisalignment: (d) => {
+        // The same reading may be both the highest and the lowest of its kind: move it in both places.
+        const move = (x: Measured | null): Measured | null =>
+          x && x.readingId === m.readingId ? { ...x, value: x.value + d } : x;
+        return kind === 'e'
+          ? { ...mis, eHi: move(mis.eHi), eLo: move(mis.eLo) }
+          : { ...mis, aHi: move(mis.aHi), aLo: move(mis.aLo) };
       },
     });
   };
-  add('eHi', mis.eHi, 'linear misalignment e', 'mm', 'most positive');
-  add('eLo', mis.eLo, 'linear misalignment e', 'mm', 'most negative');
-  add('aHi', mis.aHi, 'angular misalignment', 'deg', 'most positive');
-  add('aLo', mis.aLo, 'angular misalignment', 'deg', 'most negative');
+  add('e', mis.eHi, 'most positive');
+  add('e', mis.eLo, 'most negative');
+  add('a', mis.aHi, 'most positive');
+  add('a', mis.aLo, 'most negative');
   return out;
 }
 
-function toeInputsToVary(setup: Setup, mis: MisalignmentInputs, picks: readonly ToePick[]): Input[] {
+function toeInputs(setup: Setup, picks: readonly ToePick[]): Input[] {
   const out: Input[] = [];
-  picks.forEach((p, i) => {
-    const with_ = (g: ToeGeometry) => ({
-      mis,
-      picks: picks.map((q, j) => (j === i ? { ...q, geometry: g } : q)),
-    });
+  picks.forEach((p, index) => {
     const where = `${toeLabel(setup, p.toe)} at ${positionOf(p.reading)} mm`;
     const deg = resolutionOf(p.reading, 'deg');
     const mm = resolutionOf(p.reading, 'mm');
-    const angle = 180 - p.geometry.flankDeg;
+    const g = p.geometry;
+    const angle = 180 - g.flankDeg;
+    const common = { readingId: p.reading.id, where };
     out.push({
+      ...common,
       input: 'toe angle',
-      where,
-      readingId: p.reading.id,
       value: angle,
       unit: 'deg',
       uncertainty: deg.value,
       basis: deg.basis,
-      toe: i,
-      apply: (d) => with_({ ...p.geometry, flankDeg: 180 - Math.min(180, Math.max(90, angle + d)) }),
+      moveToe: { index, to: (d) => ({ ...g, flankDeg: 180 - Math.min(180, Math.max(90, angle + d)) }) },
     });
     if (p.radiusBasis === 'measured') {
       out.push({
+        ...common,
         input: 'toe radius',
-        where,
-        readingId: p.reading.id,
-        value: p.geometry.rho,
+        value: g.rho,
         unit: 'mm',
         uncertainty: mm.value,
         basis: mm.basis,
-        toe: i,
-        apply: (d) => with_({ ...p.geometry, rho: Math.max(1e-3, p.geometry.rho + d) }),
+        moveToe: { index, to: (d) => ({ ...g, rho: Math.max(1e-3, g.rho + d) }) },
       });
     }
-    const h = p.geometry.h;
+    const h = g.h;
     if (h !== undefined) {
       out.push({
-        input: 'reinforcement height',
+        ...common,
         where: `${where} (${p.hBasis ?? ''})`,
-        readingId: p.reading.id,
+        input: 'reinforcement height',
         value: h,
         unit: 'mm',
         uncertainty: mm.value,
         basis: mm.basis,
-        toe: i,
-        apply: (d) => with_({ ...p.geometry, h: Math.max(1e-6, h + d) }),
+        moveToe: { index, to: (d) => ({ ...g, h: Math.max(1e-6, h + d) }) },
       });
     }
   });
   return out;
+}
+
+/** Life and toe factors with one input moved by d. */
+function moved(
+  setup: Setup,
+  inp: Input,
+  d: number,
+  base: Outcome,
+  notches: readonly NotchNumbers[],
+  picks: readonly ToePick[],
+  fixed: Fixed,
+): Outcome {
+  if (inp.moveToe) {
+    // One toe's geometry: km, life and the other toes stay as they were.
+    const { index, to } = inp.moveToe;
+    const p = picks[index] as ToePick;
+    const toes = [...base.toes];
+    toes[index] = toeScore(setup, to(d), base.b[p.surface] ?? 0);
+    return { life: base.life, toes, b: base.b };
+  }
+  // A misalignment: every toe keeps its notch factors; only the secondary bending moves.
+  const { b } = bendingOf(setup, (inp.moveMisalignment as (d: number) => MisalignmentInputs)(d));
+  return { life: lifeFrom(b, fixed), toes: picks.map((p, i) => effectiveMax(notches[i] as NotchNumbers, b[p.surface] ?? 0)), b };
 }
 
 /** One-at-a-time sensitivity of the life and of each toe's factor to every measured input over its uncertainty. */
@@ -170,26 +152,27 @@ export function sensitivitySection(
   fixed: Fixed,
 ): Sensitivity {
   const notches = picks.map((p) => notchNumbers(setup.family, p.geometry));
-  const base = evaluate(setup, null, notches, mis, picks, null, fixed);
-  const labels = picks.map((p) => toeLabel(setup, p.toe));
+  const { b } = bendingOf(setup, mis);
+  const base: Outcome = {
+    life: lifeFrom(b, fixed),
+    toes: picks.map((p, i) => effectiveMax(notches[i] as NotchNumbers, b[p.surface] ?? 0)),
+    b,
+  };
   const byLife = base.life !== null && Number.isFinite(base.life);
-  const inputs = [...misalignmentInputsToVary(mis, picks), ...toeInputsToVary(setup, mis, picks)];
-  const rows: SensitivityRow[] = inputs.map((inp) => {
-    const lo = inp.apply(-inp.uncertainty);
-    const hi = inp.apply(inp.uncertainty);
-    const a = evaluate(setup, base, notches, lo.mis, lo.picks, inp.toe, fixed);
-    const b = evaluate(setup, base, notches, hi.mis, hi.picks, inp.toe, fixed);
-    const rel = (x: number | null): number => (x === null || base.life === null ? 0 : x / base.life - 1);
-    const life = byLife ? { minus: rel(a.life), plus: rel(b.life) } : null;
-    const toeFactors = picks.map((_, i) => ({
-      label: labels[i] as string,
-      minus: (a.toes[i] as number) - (base.toes[i] as number),
-      plus: (b.toes[i] as number) - (base.toes[i] as number),
-    }));
-    const finite = (x: number): number => (Number.isFinite(x) ? Math.abs(x) : 0);
-    const magnitude = life
-      ? Math.max(finite(life.minus), finite(life.plus))
-      : Math.max(0, ...toeFactors.map((t) => Math.max(finite(t.minus), finite(t.plus))));
+  const labels = picks.map((p) => toeLabel(setup, p.toe));
+  const finite = (x: number): number => (Number.isFinite(x) ? Math.abs(x) : 0);
+  const rel = (x: number | null): number => (x === null || base.life === null ? 0 : x / base.life - 1);
+  const rows: SensitivityRow[] = [...misalignmentInputs(mis), ...toeInputs(setup, picks)].map((inp) => {
+    const lo = moved(setup, inp, -inp.uncertainty, base, notches, picks, fixed);
+    const hi = moved(setup, inp, inp.uncertainty, base, notches, picks, fixed);
+    const life = byLife ? { minus: rel(lo.life), plus: rel(hi.life) } : null;
+    let toeMagnitude = 0;
+    const toeFactors = labels.map((label, i) => {
+      const minus = (lo.toes[i] as number) - (base.toes[i] as number);
+      const plus = (hi.toes[i] as number) - (base.toes[i] as number);
+      toeMagnitude = Math.max(toeMagnitude, finite(minus), finite(plus));
+      return { label, minus, plus };
+    });
     return {
       input: inp.input,
       where: inp.where,
@@ -200,10 +183,12 @@ export function sensitivitySection(
       uncertaintyBasis: inp.basis,
       life,
       toeFactors,
-      magnitude,
+      magnitude: life ? Math.max(finite(life.minus), finite(life.plus)) : toeMagnitude,
+      toeMagnitude,
     };
   });
-  rows.sort((x, y) => y.magnitude - x.magnitude || x.input.localeCompare(y.input));
+  // By life first; inputs that leave life alone (a toe under a root-crack class) by their effect on the toes.
+  rows.sort((x, y) => y.magnitude - x.magnitude || y.toeMagnitude - x.toeMagnitude || x.input.localeCompare(y.input));
   const assumptions = [
     'one input at a time, lowered and raised by its instrument resolution; everything else as measured',
     'the fatigue class, km,covered and the design stress range are held fixed',

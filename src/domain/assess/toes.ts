@@ -2,8 +2,7 @@ import { INDICATIVE_CAUTION } from '../caution.js';
 import type { Reading } from '../model/seam-file.js';
 import {
   effectiveFactors,
-  effectiveMax,
-  notchNumbers,
+  effectiveMaxOf,
   rangeOf,
   toeNotchFactors,
   type FactorRange,
@@ -66,7 +65,10 @@ export function toeFactor(setup: Setup, g: ToeGeometry, b: number): ToeFactor {
 }
 
 /** The upper end of a toe's effective-factor range, computed without text or objects (ranking, sensitivity). */
-export const toeScore = (setup: Setup, g: ToeGeometry, b: number): number => effectiveMax(notchNumbers(setup.family, g), b);
+export const toeScore = (setup: Setup, g: ToeGeometry, b: number): number => effectiveMaxOf(setup.family, g, b);
+
+const REFERENCE_BASIS_THICK = `not measured at this toe: the reference radius ${referenceRadius(5)} mm`;
+const REFERENCE_BASIS_THIN = `not measured at this toe: the reference radius ${referenceRadius(1)} mm`;
 
 function geometryOf(
   setup: Setup,
@@ -83,7 +85,9 @@ function geometryOf(
       ? 'measured'
       : smallestRadius !== undefined
         ? 'not measured here: the smallest radius measured at this toe'
-        : `not measured at this toe: the reference radius ${referenceRadius(t)} mm`;
+        : t >= 5
+          ? REFERENCE_BASIS_THICK
+          : REFERENCE_BASIS_THIN;
   const g: { -readonly [K in keyof ToeGeometry]: ToeGeometry[K] } = {
     t,
     flankDeg: 180 - (r.values.toeAngle as number),

@@ -206,6 +206,8 @@ export interface SensitivityRow {
   readonly toeFactors: readonly { readonly label: string; readonly minus: number; readonly plus: number }[];
   /** The bar length the chart ranks by: the largest relative life change, or largest toe-factor change. */
   readonly magnitude: number;
+  /** The largest change of any toe's factor (ranks inputs that leave life alone). */
+  readonly toeMagnitude: number;
 }
 
 export interface Sensitivity {

@@ -1,4 +1,4 @@
-import { insideOf, outsideOf, type Bound } from './range.js';
+import { outsideOf, type Bound } from './range.js';
 
 const RAD = Math.PI / 180;
 
@@ -18,8 +18,9 @@ const buttBounds = (tOverRho: number, flankDeg: number): Bound[] => [
   { name: 'flank angle φ (°)', value: flankDeg, min: 0, max: 90 },
 ];
 
+// Inlined comparisons of buttBounds (no allocation on the hot path); a test holds them equal to the messages.
 export const anthesButtInside = (tOverRho: number, flankDeg: number): boolean =>
-  insideOf(buttBounds(tOverRho, flankDeg));
+  tOverRho > 0 && tOverRho <= 200 && flankDeg >= 0 && flankDeg <= 90;
 
 export const anthesButtOutside = (tOverRho: number, flankDeg: number): string[] =>
   outsideOf(buttBounds(tOverRho, flankDeg));
@@ -49,8 +50,15 @@ const cruciformBounds = (tOverRho: number, flankDeg: number, aOverT: number): Bo
 const rootGapBounds = (tOverRho: number, sOverT: number): Bound[] =>
   sOverT === 0 ? [] : [{ name: 's/t', value: sOverT, min: 2 / tOverRho, max: 1 }];
 
+// Inlined comparisons of cruciformBounds and rootGapBounds (no allocation); a test holds them equal to the messages.
 export const anthesCruciformInside = (tOverRho: number, flankDeg: number, aOverT: number, sOverT: number): boolean =>
-  insideOf(cruciformBounds(tOverRho, flankDeg, aOverT)) && insideOf(rootGapBounds(tOverRho, sOverT));
+  tOverRho >= 15 &&
+  tOverRho <= 100 &&
+  flankDeg >= 30 &&
+  flankDeg <= 60 &&
+  aOverT >= 0.3 &&
+  aOverT <= 1 &&
+  (sOverT === 0 || (sOverT >= 2 / tOverRho && sOverT <= 1));
 
 export function anthesCruciformOutside(tOverRho: number, flankDeg: number, aOverT: number, sOverT: number): string[] {
   return [

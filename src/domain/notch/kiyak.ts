@@ -1,4 +1,4 @@
-import { insideOf, outsideOf, type Bound } from './range.js';
+import { outsideOf, type Bound } from './range.js';
 
 const RAD = Math.PI / 180;
 
@@ -29,8 +29,9 @@ const bounds = (flankDeg: number, h: number, T: number, rho: number): Bound[] =>
   { name: 'h/T', value: h / T, min: 0, max: Number.MAX_VALUE, minExclusive: true },
 ];
 
+// Inlined comparisons of bounds (no allocation on the hot path); a test holds them equal to the messages.
 export const kiyakInside = (flankDeg: number, h: number, T: number, rho: number): boolean =>
-  insideOf(bounds(flankDeg, h, T, rho));
+  flankDeg >= 10 && flankDeg <= 60 && rho / T >= 0.01 && rho / T <= 0.4 && h / T > 0 && Number.isFinite(h / T);
 
 export const kiyakOutside = (flankDeg: number, h: number, T: number, rho: number): string[] =>
   outsideOf(bounds(flankDeg, h, T, rho));

@@ -1,4 +1,4 @@
-import { insideOf, outsideOf, type Bound } from './range.js';
+import { outsideOf, type Bound } from './range.js';
 
 const RAD = Math.PI / 180;
 
@@ -16,7 +16,9 @@ const bounds = (flankDeg: number, t: number, rho: number): Bound[] => [
   { name: 't/ρ', value: t / rho, min: 0, max: Number.MAX_VALUE, minExclusive: true },
 ];
 
-export const lawrenceInside = (flankDeg: number, t: number, rho: number): boolean => insideOf(bounds(flankDeg, t, rho));
+// Inlined comparisons of bounds (no allocation on the hot path); a test holds them equal to the messages.
+export const lawrenceInside = (flankDeg: number, t: number, rho: number): boolean =>
+  flankDeg >= 0 && flankDeg <= 89.999 && t / rho > 0 && Number.isFinite(t / rho);
 
 export const lawrenceOutside = (flankDeg: number, t: number, rho: number): string[] =>
   outsideOf(bounds(flankDeg, t, rho));

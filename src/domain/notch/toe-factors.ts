@@ -123,7 +123,52 @@ export function effectiveNumbers(n: NotchNumbers, b: number): { values: number[]
   return { values, inRange };
 }
 
-/** The upper end of the toe's effective-factor range (see rangeOf), without building any objects. */
+/** The value a bending formula contributes, or NaN when it does not apply; sets `inside` for its validity. */
+function bendingValue(joint: NotchJoint, g: ToeGeometry, which: 0 | 1, out: { inside: boolean }): number {
+  const ratio = g.t / g.rho;
+  if (joint === 'fillet') {
+    if (which === 1) return NaN;
+    const aOverT = aOverTOf(g);
+    const raw = anthesCruciformBending(ratio, g.flankDeg, aOverT, 0);
+    out.inside = anthesCruciformInside(ratio, g.flankDeg, aOverT, 0);
+    if (!out.inside || anthesCruciformRises(ratio, g.flankDeg)) return raw;
+    return Math.max(raw, envelope((r, th) => anthesCruciformBending(r, th, aOverT, 0), 15, ratio, 30, g.flankDeg).value);
+  }
+  if (which === 0) {
+    const raw = anthesButtBending(ratio, g.flankDeg);
+    out.inside = anthesButtInside(ratio, g.flankDeg);
+    if (!out.inside || anthesButtRises(ratio, g.flankDeg)) return raw;
+    return Math.max(raw, envelope(anthesButtBending, 1e-3, ratio, 0, g.flankDeg).value);
+  }
+  if (g.h === undefined) return NaN;
+  const raw = kiyakButtBending(g.flankDeg, g.h, g.t, g.rho);
+  out.inside = kiyakInside(g.flankDeg, g.h, g.t, g.rho);
+  if (!out.inside) return raw;
+  const peak = Math.max(10, kiyakPeakFlank(g.h, g.t, g.rho));
+  return g.flankDeg <= peak ? raw : Math.max(raw, kiyakButtBending(peak, g.h, g.t, g.rho));
+}
+
+/**
+ * The upper end of a toe's effective-factor range (as rangeOf over effectiveNumbers gives it), computed with no
+ * objects at all: ranking every reading and the sensitivity study call it many times per seam.
+ */
+export function effectiveMaxOf(joint: NotchJoint, g: ToeGeometry, b: number): number {
+  const kt = lawrenceTension(alphaOf(joint), g.flankDeg, g.t, g.rho);
+  const ktInside = lawrenceInside(g.flankDeg, g.t, g.rho);
+  const flag = { inside: false };
+  let inside = -Infinity;
+  let all = -Infinity;
+  for (const which of [0, 1] as const) {
+    const kb = bendingValue(joint, g, which, flag);
+    if (Number.isNaN(kb)) continue;
+    const v = kt + kb * b;
+    all = Math.max(all, v);
+    if (ktInside && flag.inside) inside = Math.max(inside, v);
+  }
+  return inside > -Infinity ? inside : all;
+}
+
+/** The upper end of the toe's effective-factor range (see rangeOf), from numbers already computed. */
 export function effectiveMax(n: NotchNumbers, b: number): number {
   let inside = -Infinity;
   let all = -Infinity;

@@ -18,10 +18,19 @@ export interface SamplePoint {
   readonly resolution: number | null;
 }
 
+/** The same points as parallel columns (what the seam assessment builds, without an object per point). */
+export interface SampleColumns {
+  readonly readingIds: readonly string[];
+  readonly positions: readonly number[];
+  readonly values: readonly number[];
+  readonly margins: readonly (number | null)[];
+  readonly resolutions: readonly (number | null)[];
+}
+
 export interface AdequacyInput {
   readonly label: string;
   readonly unit: 'mm' | 'deg';
-  readonly points: readonly SamplePoint[];
+  readonly points: readonly SamplePoint[] | SampleColumns;
   readonly seamLength: number;
   readonly circumferential: boolean;
   /** Target half-width of the 95 % interval; default: the coarsest instrument resolution among the readings. */
@@ -36,8 +45,8 @@ export interface AdequacyInput {
 export interface RunningMean {
   readonly positions: readonly number[];
   readonly means: readonly number[];
-  /** How many positions each entry stands for (1 unless a long series was thinned to MAX_SERIES entries). */
-  readonly counts: readonly number[];
+  /** Present when a long series was thinned to MAX_SERIES entries: how many positions each entry stands for. */
+  readonly counts?: readonly number[];
 }
 
 export interface Risk {
@@ -85,7 +94,7 @@ const pct = (p: number): string =>
 
 function series(positions: readonly number[], means: readonly number[]): RunningMean {
   const n = means.length;
-  if (n <= MAX_SERIES) return { positions, means, counts: means.map((_, i) => i + 1) };
+  if (n <= MAX_SERIES) return { positions, means };
   const step = (n - 1) / (MAX_SERIES - 1);
   const out = { positions: [] as number[], means: [] as number[], counts: [] as number[] };
   for (let k = 0; k < MAX_SERIES; k++) {
@@ -97,20 +106,51 @@ function series(positions: readonly number[], means: readonly number[]): Running
   return out;
 }
 
-function riskOf(input: AdequacyInput, ordered: readonly SamplePoint[]): Risk | { notAssessed: string } {
+/** Points as columns, in order along the seam (position, then reading id). */
+function columnsOf(points: readonly SamplePoint[] | SampleColumns): SampleColumns {
+  const c: SampleColumns = Array.isArray(points)
+    ? {
+        readingIds: (points as readonly SamplePoint[]).map((p) => p.readingId),
+        positions: (points as readonly SamplePoint[]).map((p) => p.position),
+        values: (points as readonly SamplePoint[]).map((p) => p.value),
+        margins: (points as readonly SamplePoint[]).map((p) => p.margin),
+        resolutions: (points as readonly SamplePoint[]).map((p) => p.resolution),
+      }
+    : (points as SampleColumns);
+  const { positions: pos, readingIds: ids } = c;
+  const before = (a: number, b: number): boolean =>
+    (pos[a] as number) < (pos[b] as number) || (pos[a] === pos[b] && (ids[a] as string) < (ids[b] as string));
+  let ordered = true;
+  for (let i = 1; i < pos.length && ordered; i++) ordered = !before(i, i - 1);
+  if (ordered) return c;
+  // Readings are usually taken walking along the seam; otherwise sort an index and reorder every column.
+  const order = pos.map((_, i) => i).sort((a, b) => (before(a, b) ? -1 : before(b, a) ? 1 : 0));
+  const pick = <T>(xs: readonly T[]): T[] => order.map((i) => xs[i] as T);
+  return {
+    readingIds: pick(c.readingIds),
+    positions: pick(c.positions),
+    values: pick(c.values),
+    margins: pick(c.margins),
+    resolutions: pick(c.resolutions),
+  };
+}
+
+function riskOf(input: AdequacyInput, c: SampleColumns): Risk | { notAssessed: string } {
   if (input.riskUnavailable) return { notAssessed: input.riskUnavailable };
-  const margins = ordered.map((p) => p.margin).filter((m): m is number => m !== null && Number.isFinite(m));
+  const margins: number[] = [];
+  for (const m of c.margins) if (m !== null && Number.isFinite(m)) margins.push(m);
   if (margins.length < 2) return { notAssessed: 'needs at least 2 graded at-pitch positions' };
   const m = meanAndSd(margins);
   const one = predictiveBelow(0, m.mean, m.sd, m.n);
-  const pitch = pitchOf(ordered.map((p) => p.position));
-  const distinct = new Set(ordered.map((p) => p.position)).size;
+  const positions = c.positions;
+  const pitch = pitchOf(positions);
+  let distinct = positions.length ? 1 : 0;
+  for (let i = 1; i < positions.length; i++) if (positions[i] !== positions[i - 1]) distinct++;
   const slots =
     pitch && pitch > 0 ? Math.floor(input.seamLength / pitch) + (input.circumferential ? 0 : 1) : distinct;
   const unmeasured = Math.max(0, slots - distinct);
   return {
-    distribution:
-      'normal margins to the limit, fitted by mean and sample standard deviation; a new position follows the Student t predictive distribution',
+    distribution: RISK_DISTRIBUTION,
     requiredLevel: input.requiredLevel,
     onePosition: one,
     pitchMm: pitch,
@@ -121,29 +161,31 @@ function riskOf(input: AdequacyInput, ordered: readonly SamplePoint[]): Risk | {
   };
 }
 
+const RISK_DISTRIBUTION =
+  'normal margins to the limit, fitted by mean and sample standard deviation; a new position follows the Student t predictive distribution';
+const ASKED = 'asked for';
+const RESOLUTION = 'instrument resolution';
+const DEFAULT = 'default resolution (instrument resolution not recorded)';
+
 /** Sampling adequacy of one measured parameter at one place on the seam, from its at-pitch readings. */
 export function adequacyOf(input: AdequacyInput): Adequacy {
-  const ordered = [...input.points].sort(
-    (a, b) => a.position - b.position || (a.readingId < b.readingId ? -1 : 1),
-  );
-  const values = ordered.map((p) => p.value);
+  const c = columnsOf(input.points);
+  const { values, positions } = c;
+  let coarsest = -Infinity;
+  for (const r of c.resolutions) if (r !== null && r > coarsest) coarsest = r;
   const stats = meanAndSd(values);
-  const resolutions = ordered.map((p) => p.resolution).filter((r): r is number => r !== null);
   const target =
     input.target !== undefined
-      ? { value: input.target, basis: 'asked for' }
-      : resolutions.length
-        ? { value: Math.max(...resolutions), basis: 'instrument resolution' }
-        : {
-            value: input.defaultResolution,
-            basis: 'default resolution (instrument resolution not recorded)',
-          };
+      ? { value: input.target, basis: ASKED }
+      : coarsest > -Infinity
+        ? { value: coarsest, basis: RESOLUTION }
+        : { value: input.defaultResolution, basis: DEFAULT };
   const half = stats.n >= 2 ? confidenceHalfWidth(stats.sd, stats.n) : null;
   const means = runningMeans(values);
   const settle = stats.n ? settling(means, target.value) : { after: 0, settled: false };
   const needed = stats.n >= 2 ? positionsForHalfWidth(stats.sd, target.value) : null;
   const more = needed === null ? null : Math.max(0, needed - stats.n);
-  const risk = riskOf(input, ordered);
+  const risk = riskOf(input, c);
   const u = input.unit === 'deg' ? '°' : ' mm';
   const parts: string[] = [];
   if (stats.n < 2) {
@@ -181,10 +223,7 @@ export function adequacyOf(input: AdequacyInput): Adequacy {
     sd: stats.n >= 2 ? stats.sd : null,
     ci95: half === null ? null : { low: stats.mean - half, high: stats.mean + half, halfWidth: half },
     target,
-    runningMean: series(
-      ordered.map((p) => p.position),
-      means,
-    ),
+    runningMean: series(positions, means),
     settled: settle.settled,
     settledAfter: stats.n ? settle.after : null,
     positionsNeeded: needed,

@@ -102,14 +102,17 @@ export function atLeastOne(p: number, m: number): number {
 
 /** The regular spacing of the positions: the median gap between distinct sorted positions. */
 export function pitchOf(positions: readonly number[]): number | null {
-  const s = [...positions].sort((a, b) => a - b);
-  const gaps: number[] = [];
+  let sorted = true;
+  for (let i = 1; i < positions.length && sorted; i++) sorted = (positions[i] as number) >= (positions[i - 1] as number);
+  const s = sorted ? positions : Float64Array.from(positions).sort();
+  const gaps = new Float64Array(Math.max(0, s.length - 1));
+  let n = 0;
   for (let i = 1; i < s.length; i++) {
     const gap = (s[i] as number) - (s[i - 1] as number);
-    if (gap > 0) gaps.push(gap);
+    if (gap > 0) gaps[n++] = gap;
   }
-  if (!gaps.length) return null;
-  gaps.sort((a, b) => a - b);
-  const mid = gaps.length >> 1;
-  return gaps.length % 2 ? (gaps[mid] as number) : ((gaps[mid - 1] as number) + (gaps[mid] as number)) / 2;
+  if (!n) return null;
+  const g = gaps.subarray(0, n).sort();
+  const mid = n >> 1;
+  return n % 2 ? (g[mid] as number) : ((g[mid - 1] as number) + (g[mid] as number)) / 2;
 }

@@ -76,6 +76,7 @@ import {
   loadSession,
   planUndoIn,
   saveSession,
+  withEntry,
   type SessionEntry,
 } from './session.js';
 import { sidesWithToes } from './joint-geometry.js';
@@ -350,7 +351,7 @@ export function GaugeEntry(props: {
     }
     // The inspector has done real work here: ask the browser, once, to keep this device's data.
     void noteEngagement().catch(() => undefined);
-    const ids = [...sessionIds, { id: reading.id, correction: target !== null }];
+    const ids = withEntry(sessionIds, { id: reading.id, correction: target !== null });
     setSessionIds(ids);
     saveSession(sessionStorage, seamId, ids);
     // Where the next entry goes.

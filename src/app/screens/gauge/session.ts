@@ -25,8 +25,19 @@ export function loadSession(store: KeyValueStore, seamId: string): SessionEntry[
   }
 }
 
+/**
+ * How many of a session's latest entries undo can reach back through, one undo at a time. The session is written
+ * to session storage on every save, so it is kept to a size whose writing does not grow with a long session.
+ */
+export const SESSION_LIMIT = 1000;
+
+/** The session with one more entry, the oldest dropped past SESSION_LIMIT. */
+export function withEntry(session: readonly SessionEntry[], entry: SessionEntry): SessionEntry[] {
+  return [...session.slice(Math.max(0, session.length + 1 - SESSION_LIMIT)), entry];
+}
+
 export function saveSession(store: KeyValueStore, seamId: string, entries: readonly SessionEntry[]): void {
-  storageHelpers.safeSet(store, sessionKey(seamId), JSON.stringify(entries));
+  storageHelpers.safeSet(store, sessionKey(seamId), JSON.stringify(entries.slice(-SESSION_LIMIT)));
 }
 
 /** Ids of readings that a later reading supersedes (corrected or withdrawn). */

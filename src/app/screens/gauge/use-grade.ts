@@ -1,4 +1,4 @@
-import { useCallback, useRef, useState } from 'preact/hooks';
+import { useCallback, useEffect, useRef, useState } from 'preact/hooks';
 import {
   describeProblems,
   levelText,
@@ -23,6 +23,8 @@ export interface GradeShown {
   readonly error: string | null;
 }
 
+const SUMMARY_DELAY_MS = 1500;
+
 const message = (e: unknown): string => (e instanceof Error ? e.message : String(e));
 
 function summaryOf(g: SeamGrade): Parameters<Store['setSummary']>[1] {
@@ -45,6 +47,24 @@ function summaryOf(g: SeamGrade): Parameters<Store['setSummary']>[1] {
 export function useGrade(store: Store, seamId: string) {
   const [shown, setShown] = useState<GradeShown | null>(null);
   const ticket = useRef(0);
+  // The Seams list's cached summary is written once entries pause (and when the screen closes), not once per
+  // save: it is a durable write, and the list grades every seam again when it opens anyway.
+  const summary = useRef<{ timer: ReturnType<typeof setTimeout>; write: () => void } | null>(null);
+  const flushSummary = useCallback(() => {
+    const pending = summary.current;
+    summary.current = null;
+    if (!pending) return;
+    clearTimeout(pending.timer);
+    pending.write();
+  }, []);
+  useEffect(() => flushSummary, [flushSummary]);
+  const queueSummary = useCallback(
+    (write: () => void) => {
+      if (summary.current) clearTimeout(summary.current.timer);
+      summary.current = { timer: setTimeout(flushSummary, SUMMARY_DELAY_MS), write };
+    },
+    [flushSummary],
+  );
   // How many readings of the seam the worker's copy holds; null until it has one.
   const sent = useRef<number | null>(null);
 
@@ -119,7 +139,8 @@ export function useGrade(store: Store, seamId: string) {
         });
         if (saveSummary) {
           // The Seams list shows this cached summary; the grade itself is always recomputed.
-          store.setSummary(seamId, summaryOf(reply.standing)).catch(() => undefined);
+          const next = summaryOf(reply.standing);
+          queueSummary(() => void store.setSummary(seamId, next).catch(() => undefined));
         }
         const level = found?.levelMet;
         return level ? `level met by this reading: ${levelText(level)}; ${soFar.text}` : soFar.text;
@@ -138,7 +159,7 @@ export function useGrade(store: Store, seamId: string) {
         return null;
       }
     },
-    [store, seamId, ask],
+    [store, seamId, ask, queueSummary],
   );
   return { shown, grade };
 }

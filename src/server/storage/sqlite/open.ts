@@ -7,14 +7,24 @@ import { MIGRATIONS, type Migration } from './migrations.js';
 
 export type Db = Database.Database;
 
-export function openDatabase(file: string, migrations: readonly Migration[] = MIGRATIONS): Db {
+export interface OpenOptions {
+  /**
+   * FULL (the default) syncs every commit to disk. NORMAL survives a crash of the process but may lose the
+   * last commits on a power cut: for tests and benchmarks that restart the process, never for a yard.
+   */
+  readonly synchronous?: 'FULL' | 'NORMAL';
+  readonly migrations?: readonly Migration[];
+}
+
+export function openDatabase(file: string, options: OpenOptions = {}): Db {
+  const migrations = options.migrations ?? MIGRATIONS;
   const memory = file === ':memory:';
   if (!memory) mkdirSync(dirname(file), { recursive: true });
   const db = new Database(file);
   try {
     if (!memory) db.pragma('journal_mode = WAL');
     db.pragma('foreign_keys = ON');
-    db.pragma('synchronous = FULL');
+    db.pragma(options.synchronous === 'NORMAL' ? 'synchronous = NORMAL' : 'synchronous = FULL');
     db.pragma('busy_timeout = 5000');
     migrate(db, migrations);
     return db;

@@ -26,7 +26,7 @@ import type {
   Storage,
   StoredRecord,
 } from '../types.js';
-import { openDatabase, type Db } from './open.js';
+import { openDatabase, type Db, type OpenOptions } from './open.js';
 
 interface AccountRow {
   id: number;
@@ -251,8 +251,8 @@ export class SqliteStorage implements Storage {
   }
 
   /** Opens (creating it on first use) the database file and brings its schema up to date. */
-  static open(file: string): SqliteStorage {
-    return new SqliteStorage(openDatabase(file));
+  static open(file: string, options: OpenOptions = {}): SqliteStorage {
+    return new SqliteStorage(openDatabase(file, options));
   }
 
   /** The connection, for tests that must reach under the contract (e.g. to inject a failing trigger). */

@@ -1,0 +1,144 @@
+// Supervisor operations shared by the JSON API and the web pages.
+import { canonicalJson, DECISION_OUTCOMES, formatEnrolmentTicket, newEnrolmentCode, randomUuid } from '../../protocol/index.js';
+import { parseSeamFile, SEAM_FILE_FORMAT, type Seam } from '../../domain/index.js';
+import { tokenHash } from '../auth/tokens.js';
+import type { AppDeps } from '../deps.js';
+import { foldSeam } from '../grading/fold.js';
+import { HttpError } from '../http/errors.js';
+import type { Account, SeamNamespace } from '../storage/types.js';
+
+export interface IssuedCode {
+  readonly code: string;
+  /** The text of the QR code: the code and the server key's kid. */
+  readonly ticket: string;
+  readonly expiresAt: string;
+  readonly serverKid: string;
+}
+
+export async function issueEnrolmentCode(deps: AppDeps, by: Account): Promise<IssuedCode> {
+  const code = newEnrolmentCode();
+  const now = deps.now();
+  const expiresAt = new Date(now.getTime() + deps.config.enrolmentCodeMinutes * 60_000).toISOString();
+  await deps.storage.createEnrolmentCode({ codeHash: tokenHash(code), createdBy: by.id, createdAt: now.toISOString(), expiresAt });
+  deps.log.info('enrolmentCodeIssued', { by: by.username, expiresAt });
+  return { code, ticket: formatEnrolmentTicket({ code, serverKid: deps.serverKey.kid }), expiresAt, serverKid: deps.serverKey.kid };
+}
+
+/** The seam set-up checked with the grading core's rules; a 400 lists every problem. */
+export function checkSeamSetup(input: unknown): Seam {
+  const parsed = parseSeamFile(
+    {
+      format: SEAM_FILE_FORMAT,
+      units: { length: 'mm', angle: 'deg' },
+      seam: input,
+      rounds: [{ number: 1, kind: 'first', checklist: {} }],
+      readings: [],
+    },
+    { allowNoReadings: true },
+  );
+  if (!parsed.ok) {
+    throw new HttpError(400, 'invalid', parsed.problems.map((p) => `${p.path}: ${p.message}`).join('; '));
+  }
+  return parsed.value.seam;
+}
+
+export async function putSeam(
+  deps: AppDeps,
+  by: Account | null,
+  seam: Seam,
+  namespace: SeamNamespace,
+): Promise<'created' | 'updated'> {
+  const existing = await deps.storage.getSeam(seam.id);
+  if (existing && existing.namespace !== namespace) {
+    throw new HttpError(409, 'namespace', `seam "${seam.id}" is a ${existing.namespace} seam; it cannot become ${namespace}`);
+  }
+  const result = await deps.storage.putSeam(
+    { id: seam.id, namespace, setup: canonicalJson(seam), createdAt: deps.now().toISOString() },
+    by?.id ?? null,
+  );
+  deps.regrader.schedule([seam.id]);
+  return result;
+}
+
+/** The seam's current set-up: the newest a device sent, else the one set up on the server. */
+async function currentSetup(deps: AppDeps, seamId: string): Promise<Seam> {
+  const seam = foldSeam(await deps.storage.seamMaterial(seamId)).seam;
+  if (!seam) throw new HttpError(404, 'unknownSeam', `no seam "${seamId}" is known to this server`);
+  return seam;
+}
+
+export async function assignSeam(
+  deps: AppDeps,
+  by: Account,
+  input: { seamId: string; deviceKid: string; note?: string | undefined },
+): Promise<{ id: string; seq: number }> {
+  const device = await deps.storage.getDevice(input.deviceKid);
+  if (!device) throw new HttpError(404, 'unknownDevice', 'no device is enrolled with this kid');
+  if (device.revokedAt !== null) throw new HttpError(409, 'revoked', 'this device is revoked');
+  const seam = await currentSetup(deps, input.seamId);
+  const id = randomUuid();
+  const now = deps.now().toISOString();
+  const item = { id, seamId: input.seamId, seam, ...(input.note ? { note: input.note } : {}), assignedBy: by.username, assignedAt: now };
+  const change = await deps.storage.addChange({
+    kind: 'assignment',
+    itemId: id,
+    seamId: input.seamId,
+    deviceKid: device.kid,
+    item: canonicalJson(item),
+    createdAt: now,
+    createdBy: by.id,
+  });
+  deps.log.info('assigned', { by: by.username, seamId: input.seamId, kid: device.kid });
+  return { id, seq: change.seq };
+}
+
+export async function decide(
+  deps: AppDeps,
+  by: Account,
+  input: { seamId: string; round: number; outcome: (typeof DECISION_OUTCOMES)[number]; comment?: string | undefined },
+): Promise<{ id: string; seq: number }> {
+  await currentSetup(deps, input.seamId);
+  const id = randomUuid();
+  const now = deps.now().toISOString();
+  const item = {
+    id,
+    seamId: input.seamId,
+    round: input.round,
+    outcome: input.outcome,
+    ...(input.comment ? { comment: input.comment } : {}),
+    decidedBy: by.username,
+    decidedAt: now,
+  };
+  const change = await deps.storage.addChange({
+    kind: 'decision',
+    itemId: id,
+    seamId: input.seamId,
+    deviceKid: null,
+    item: canonicalJson(item),
+    createdAt: now,
+    createdBy: by.id,
+  });
+  deps.log.info('decided', { by: by.username, seamId: input.seamId, outcome: input.outcome });
+  return { id, seq: change.seq };
+}
+
+/** Everything the server holds on a seam: set-up, records as stored, its own grade and the devices' grades. */
+export async function seamView(deps: AppDeps, seamId: string) {
+  const [seam, material, grade, deviceGrades] = await Promise.all([
+    deps.storage.getSeam(seamId),
+    deps.storage.seamMaterial(seamId),
+    deps.storage.getServerGrade(seamId),
+    deps.storage.listDeviceGrades(seamId),
+  ]);
+  if (!seam && material.records.length === 0) {
+    throw new HttpError(404, 'unknownSeam', `no seam "${seamId}" is known to this server`);
+  }
+  return {
+    id: seamId,
+    namespace: seam?.namespace ?? 'live',
+    setup: foldSeam(material).seam,
+    records: material.records.map((r) => ({ ...r, body: JSON.parse(r.body) as unknown })),
+    serverGrade: grade ? { ...grade, summary: JSON.parse(grade.summary) as unknown } : null,
+    deviceGrades: deviceGrades.map((g) => ({ ...g, grade: JSON.parse(g.grade) as unknown })),
+  };
+}
