@@ -12,7 +12,10 @@ import { recordFromOutbox, type OutboxEntryLike } from './records.js';
 import { MAX_RECORDS_PER_BATCH, PROTOCOL_VERSION } from './version.js';
 import type { CryptoKey } from 'jose';
 
-const batchId = v.pipe(text(64, 'a batch id'), v.regex(/^[A-Za-z0-9_-]+$/, 'may hold only letters, digits, - and _'));
+const batchId = v.pipe(
+  text(64, 'a batch id'),
+  v.regex(/^[A-Za-z0-9_-]+$/, 'may hold only letters, digits, - and _'),
+);
 
 /** The grade the device showed for a seam when it sealed the batch; the server keeps it beside its own. */
 const deviceGrade = obj('a device grade', {
@@ -33,7 +36,10 @@ export const batchPayloadSchema = obj('a batch', {
   records: v.pipe(
     v.array(v.unknown(), 'records must be a list'),
     v.minLength(1, 'records must hold at least one record'),
-    v.maxLength(MAX_RECORDS_PER_BATCH, (i) => `records holds ${i.received} items; at most ${MAX_RECORDS_PER_BATCH} per batch`),
+    v.maxLength(
+      MAX_RECORDS_PER_BATCH,
+      (i) => `records holds ${i.received} items; at most ${MAX_RECORDS_PER_BATCH} per batch`,
+    ),
   ),
   deviceGrades: v.optional(v.pipe(v.array(deviceGrade), v.maxLength(MAX_RECORDS_PER_BATCH))),
 });
@@ -42,7 +48,8 @@ export type BatchPayload = v.InferOutput<typeof batchPayloadSchema>;
 export type DeviceGrade = v.InferOutput<typeof deviceGrade>;
 
 /** The batch payload, or a ProtocolError ('version' or 'malformed'). Records are judged one by one later. */
-export const parseBatchPayload = (payload: unknown): BatchPayload => parsePayload(batchPayloadSchema, payload, 'batch');
+export const parseBatchPayload = (payload: unknown): BatchPayload =>
+  parsePayload(batchPayloadSchema, payload, 'batch');
 
 export const RECORD_STATUSES = ['accepted', 'duplicate', 'parked', 'rejected'] as const;
 export type RecordStatus = (typeof RECORD_STATUSES)[number];

@@ -3,6 +3,9 @@
 // were built in, so content can be compared and hashed as text. Only JSON values are accepted: undefined, NaN,
 // Infinity, functions, symbols, bigints and cycles are errors, never dropped or turned into null silently.
 
+/** Keys JSON writes as they are (no escapes), so quoting them needs no JSON.stringify. */
+const PLAIN_KEY = /^[A-Za-z0-9_$-]*$/;
+
 export function canonicalJson(value: unknown): string {
   return write(value, new Set());
 }
@@ -29,8 +32,9 @@ function write(value: unknown, open: Set<object>): string {
         const parts: string[] = [];
         for (const key of keys) {
           const member = record[key];
-          if (member === undefined) throw new TypeError(`canonical JSON has no form for undefined (at "${key}")`);
-          parts.push(`${JSON.stringify(key)}:${write(member, open)}`);
+          if (member === undefined)
+            throw new TypeError(`canonical JSON has no form for undefined (at "${key}")`);
+          parts.push(`${PLAIN_KEY.test(key) ? `"${key}"` : JSON.stringify(key)}:${write(member, open)}`);
         }
         out = `{${parts.join(',')}}`;
       }

@@ -3,12 +3,18 @@
 // private half. The reply carries the server's public key, which the device checks against the ticket and keeps
 // for verifying what the server signs.
 import * as v from 'valibot';
-import type { CryptoKey } from 'jose';
 import { obj, text } from '../domain/model/schema-kit.js';
 import { canonicalJson } from './canonical-json.js';
 import { ProtocolError } from './errors.js';
 import { KID_PATTERN, thumbprint, toPublicJwk, type PublicJwk } from './jwk.js';
-import { decodeJsonSegment, jwsBody, parseFlattenedJws, readProtectedHeader, signJws, verifyJws } from './jws.js';
+import {
+  decodeJsonSegment,
+  jwsBody,
+  parseFlattenedJws,
+  readProtectedHeader,
+  signJws,
+  verifyJws,
+} from './jws.js';
 import { parsePayload, protocolField } from './payload.js';
 import { randomBytes } from './platform.js';
 import { PROTOCOL_VERSION } from './version.js';
@@ -31,11 +37,7 @@ export function newEnrolmentCode(): string {
  * dashes do not matter; O reads as 0 and I or L as 1, as Crockford's base32 has it.
  */
 export function normaliseEnrolmentCode(input: string): string | null {
-  const plain = input
-    .toUpperCase()
-    .replace(/[\s-]/g, '')
-    .replace(/O/g, '0')
-    .replace(/[IL]/g, '1');
+  const plain = input.toUpperCase().replace(/[\s-]/g, '').replace(/O/g, '0').replace(/[IL]/g, '1');
   if (plain.length !== CODE_LENGTH || [...plain].some((c) => !CODE_DIGITS.includes(c))) return null;
   return `${plain.slice(0, 4)}-${plain.slice(4)}`;
 }
@@ -148,11 +150,12 @@ export async function checkEnrolReply(
   ticketServerKid: string | null,
 ): Promise<EnrolReply> {
   const parsed = v.safeParse(enrolReplySchema, reply);
-  if (!parsed.success) throw new ProtocolError('malformed', 'the enrolment reply is not in the expected form');
+  if (!parsed.success)
+    throw new ProtocolError('malformed', 'the enrolment reply is not in the expected form');
   const jwk = toPublicJwk(parsed.output.server.jwk);
   const kid = await thumbprint(jwk);
   if (kid !== parsed.output.server.kid) {
-    throw new ProtocolError('signature', "the server key does not match the kid it was sent with");
+    throw new ProtocolError('signature', 'the server key does not match the kid it was sent with');
   }
   if (ticketServerKid !== null && kid !== ticketServerKid) {
     throw new ProtocolError('signature', 'the server key is not the one the enrolment code named');

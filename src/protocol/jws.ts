@@ -82,7 +82,10 @@ export function readProtectedHeader(jws: FlattenedJws, kind: JwsKind): Protected
     throw new ProtocolError('algorithm', `alg ${named} is not accepted; only ${JWS_ALG} is`);
   }
   if ('crit' in h) {
-    throw new ProtocolError('header', 'crit is not accepted: this protocol defines no critical header extensions');
+    throw new ProtocolError(
+      'header',
+      'crit is not accepted: this protocol defines no critical header extensions',
+    );
   }
   const unknown = Object.keys(h).filter((k) => !HEADER_MEMBERS.has(k));
   if (unknown.length) {
@@ -93,11 +96,14 @@ export function readProtectedHeader(jws: FlattenedJws, kind: JwsKind): Protected
   }
   const expected = JWS_TYPES[kind];
   if (h['typ'] !== expected) {
-    throw new ProtocolError('type', `typ must be "${expected}" for this request; got ${JSON.stringify(h['typ'])}`);
+    throw new ProtocolError(
+      'type',
+      `typ must be "${expected}" for this request; got ${JSON.stringify(h['typ'])}`,
+    );
   }
   const kid = h['kid'];
   if (typeof kid !== 'string' || !KID_PATTERN.test(kid)) {
-    throw new ProtocolError('header', 'kid must be the key\'s RFC 7638 thumbprint (43 base64url characters)');
+    throw new ProtocolError('header', "kid must be the key's RFC 7638 thumbprint (43 base64url characters)");
   }
   return { alg: JWS_ALG, kid, typ: expected };
 }

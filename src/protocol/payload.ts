@@ -5,7 +5,11 @@ import { toProblems } from '../domain/model/schema-kit.js';
 import { ProtocolError } from './errors.js';
 import { PROTOCOL_VERSION } from './version.js';
 
-export function parsePayload<S extends v.GenericSchema>(schema: S, payload: unknown, what: string): v.InferOutput<S> {
+export function parsePayload<S extends v.GenericSchema>(
+  schema: S,
+  payload: unknown,
+  what: string,
+): v.InferOutput<S> {
   if (typeof payload !== 'object' || payload === null || Array.isArray(payload)) {
     throw new ProtocolError('malformed', `the ${what} payload must be a JSON object`);
   }
@@ -19,7 +23,10 @@ export function parsePayload<S extends v.GenericSchema>(schema: S, payload: unkn
   const parsed = v.safeParse(schema, payload, { abortPipeEarly: true });
   if (!parsed.success) {
     const problems = toProblems(parsed.issues).slice(0, 5);
-    throw new ProtocolError('malformed', `${what}: ${problems.map((p) => `${p.path}: ${p.message}`).join('; ')}`);
+    throw new ProtocolError(
+      'malformed',
+      `${what}: ${problems.map((p) => `${p.path}: ${p.message}`).join('; ')}`,
+    );
   }
   return parsed.output;
 }

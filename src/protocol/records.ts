@@ -114,7 +114,12 @@ export function judgeRecord(input: unknown): RecordVerdict {
   }
   const version = raw['schemaVersion'];
   if (typeof version !== 'number' || !Number.isInteger(version) || version < 1) {
-    return rejected(recordId, [{ path: 'schemaVersion', message: `must be a whole number from 1; got ${JSON.stringify(version) ?? 'nothing'}` }]);
+    return rejected(recordId, [
+      {
+        path: 'schemaVersion',
+        message: `must be a whole number from 1; got ${JSON.stringify(version) ?? 'nothing'}`,
+      },
+    ]);
   }
   if (version > RECORD_SCHEMA_VERSION) {
     const seamId = raw['seamId'];
@@ -172,7 +177,8 @@ function crossChecks(record: SyncRecord): Problem[] {
 function readingAlone(recordId: string, seamId: string, r: RecordBodies['reading']['reading']): Problem[] {
   const problems: Problem[] = [];
   const at = 'body.reading';
-  if (r.id !== recordId) problems.push({ path: `${at}.id`, message: `must equal the record's id "${recordId}"` });
+  if (r.id !== recordId)
+    problems.push({ path: `${at}.id`, message: `must equal the record's id "${recordId}"` });
   if (r.seamId !== undefined && r.seamId !== seamId) {
     problems.push({ path: `${at}.seamId`, message: `must equal the record's seamId "${seamId}"` });
   }

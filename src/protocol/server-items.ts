@@ -44,14 +44,22 @@ export const decisionSchema = obj('a decision', {
   decidedAt: isoTimestamp(),
 });
 
-const serverItemSchema = v.variant('type', [assignmentSchema, decisionSchema], 'type must be "assignment" or "decision"');
+const serverItemSchema = v.variant(
+  'type',
+  [assignmentSchema, decisionSchema],
+  'type must be "assignment" or "decision"',
+);
 
 export type Assignment = v.InferOutput<typeof assignmentSchema>;
 export type Decision = v.InferOutput<typeof decisionSchema>;
 export type ServerItem = Assignment | Decision;
 
 /** Signs an item with the server's key (server side). */
-export async function signServerItem(item: ServerItem, key: CryptoKey, serverKid: string): Promise<FlattenedJws> {
+export async function signServerItem(
+  item: ServerItem,
+  key: CryptoKey,
+  serverKid: string,
+): Promise<FlattenedJws> {
   return signJws(canonicalJson({ ...item, protocol: PROTOCOL_VERSION }), 'server', key, serverKid);
 }
 
@@ -67,9 +75,13 @@ export async function verifyServerItem(
   const jws = parseFlattenedJws(input);
   const verified = await verifyJws(jws, 'server', { ...server.jwk });
   if (verified.header.kid !== server.kid) {
-    throw new ProtocolError('signature', 'the item is not signed by the server key this device enrolled with');
+    throw new ProtocolError(
+      'signature',
+      'the item is not signed by the server key this device enrolled with',
+    );
   }
   const item = parsePayload(serverItemSchema, verified.payload, 'server item');
-  if (item.deviceKid !== deviceKid) throw new ProtocolError('malformed', 'the item is addressed to another device');
+  if (item.deviceKid !== deviceKid)
+    throw new ProtocolError('malformed', 'the item is addressed to another device');
   return item;
 }

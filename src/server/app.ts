@@ -73,7 +73,9 @@ export async function createApp(options: AppOptions): Promise<BeadbookApp> {
   app.use('*', securityHeaders(deps.secure));
   app.use('*', loadSession(deps));
 
-  app.get('/healthz', (c) => c.json({ ok: true, protocol: PROTOCOL_VERSION, version: options.version ?? null }));
+  app.get('/healthz', (c) =>
+    c.json({ ok: true, protocol: PROTOCOL_VERSION, version: options.version ?? null }),
+  );
   app.route('/api/sync', syncRoutes(deps));
   app.route('/api/session', sessionRoutes(deps));
   app.route('/api/admin', adminRoutes(deps));
@@ -89,7 +91,8 @@ export async function createApp(options: AppOptions): Promise<BeadbookApp> {
   });
 
   app.notFound((c) => {
-    if (wantsHtml(c.req.path, c.req.header('accept'))) return c.html(errorPage(404, 'There is nothing at this address.'), 404);
+    if (wantsHtml(c.req.path, c.req.header('accept')))
+      return c.html(errorPage(404, 'There is nothing at this address.'), 404);
     return c.json({ error: 'notFound', message: 'nothing at this address' }, 404);
   });
 
@@ -97,7 +100,8 @@ export async function createApp(options: AppOptions): Promise<BeadbookApp> {
     const e = isProtocolError(error) ? fromProtocolError(error) : error instanceof HttpError ? error : null;
     if (e) {
       for (const [k, v] of Object.entries(e.headers)) c.header(k, v);
-      if (wantsHtml(c.req.path, c.req.header('accept'))) return c.html(errorPage(e.status, e.message), e.status);
+      if (wantsHtml(c.req.path, c.req.header('accept')))
+        return c.html(errorPage(e.status, e.message), e.status);
       return c.json({ error: e.code, message: e.message }, e.status);
     }
     const ref = c.get('requestId');

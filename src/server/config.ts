@@ -68,7 +68,9 @@ export const DEFAULTS = {
 export function readConfig(env: Env, argv: readonly string[] = [], cwd = process.cwd()): ServerConfig {
   const unknownArgs = argv.filter((a) => a !== '--demo');
   if (unknownArgs.length) {
-    throw new ConfigError(`unknown argument${unknownArgs.length > 1 ? 's' : ''}: ${unknownArgs.join(' ')} (known: --demo)`);
+    throw new ConfigError(
+      `unknown argument${unknownArgs.length > 1 ? 's' : ''}: ${unknownArgs.join(' ')} (known: --demo)`,
+    );
   }
   const certFile = env['BEADBOOK_TLS_CERT'] || undefined;
   const keyFile = env['BEADBOOK_TLS_KEY'] || undefined;
@@ -81,7 +83,9 @@ export function readConfig(env: Env, argv: readonly string[] = [], cwd = process
   }
   const supervisorName = env['BEADBOOK_SUPERVISOR_NAME'] || 'supervisor';
   if (!/^[A-Za-z0-9._-]{1,40}$/.test(supervisorName)) {
-    throw new ConfigError('BEADBOOK_SUPERVISOR_NAME may hold 1 to 40 letters, digits, dots, dashes and underscores');
+    throw new ConfigError(
+      'BEADBOOK_SUPERVISOR_NAME may hold 1 to 40 letters, digits, dots, dashes and underscores',
+    );
   }
   const dbFile = env['BEADBOOK_DB'] || DEFAULTS.dbFile;
   return {
@@ -109,6 +113,10 @@ export function readConfig(env: Env, argv: readonly string[] = [], cwd = process
 
 /** Settings for tests: in memory, cheap password hashing, generous rate limits; override what a test is about. */
 export function testConfig(over: Partial<ServerConfig> = {}): ServerConfig {
-  const base = readConfig({ BEADBOOK_DB: ':memory:', BEADBOOK_SYNC_RATE: '1000000', BEADBOOK_LOGIN_RATE: '100000' });
+  const base = readConfig({
+    BEADBOOK_DB: ':memory:',
+    BEADBOOK_SYNC_RATE: '1000000',
+    BEADBOOK_LOGIN_RATE: '100000',
+  });
   return { ...base, scryptCost: 2 ** 10, ...over };
 }

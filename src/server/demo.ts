@@ -36,22 +36,32 @@ export async function loadDemoYard(deps: AppDeps): Promise<{ seams: number; reco
       });
     for (const round of file.rounds) {
       const startedAt = round.startedAt ?? DEMO_TIME;
-      add(`${seamId}/round/${round.number}`, 'round', {
-        seamId,
-        number: round.number,
-        kind: round.kind,
+      add(
+        `${seamId}/round/${round.number}`,
+        'round',
+        {
+          seamId,
+          number: round.number,
+          kind: round.kind,
+          startedAt,
+          ...(round.examiner ? { examiner: round.examiner } : {}),
+        },
         startedAt,
-        ...(round.examiner ? { examiner: round.examiner } : {}),
-      }, startedAt);
+      );
       for (const [item, answer] of Object.entries(round.checklist)) {
         if (!answer) continue;
-        add(`${seamId}/round/${round.number}/${item}`, 'checklistAnswer', {
-          seamId,
-          round: round.number,
-          item,
-          answer,
-          answeredAt: startedAt,
-        }, startedAt);
+        add(
+          `${seamId}/round/${round.number}/${item}`,
+          'checklistAnswer',
+          {
+            seamId,
+            round: round.number,
+            item,
+            answer,
+            answeredAt: startedAt,
+          },
+          startedAt,
+        );
       }
     }
     for (const reading of file.readings) add(reading.id, 'reading', { seamId, reading }, reading.recordedAt);

@@ -44,6 +44,8 @@ function errorsAsObjects(_key: string, value: unknown): unknown {
 /** A logger that keeps its lines, for tests. */
 export function memoryLogger(): Logger & { readonly lines: Record<string, unknown>[] } {
   const lines: Record<string, unknown>[] = [];
-  const logger = createLogger((line) => lines.push(JSON.parse(line) as Record<string, unknown>), { level: 'debug' });
+  const logger = createLogger((line) => lines.push(JSON.parse(line) as Record<string, unknown>), {
+    level: 'debug',
+  });
   return Object.assign(logger, { lines });
 }

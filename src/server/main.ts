@@ -15,7 +15,9 @@ const log = createLogger((line) => process.stdout.write(line));
 
 async function main(): Promise<void> {
   const config = readConfig(process.env, process.argv.slice(2));
-  const pkg = JSON.parse(readFileSync(new URL('../../../../package.json', import.meta.url), 'utf8')) as { version: string };
+  const pkg = JSON.parse(readFileSync(new URL('../../../../package.json', import.meta.url), 'utf8')) as {
+    version: string;
+  };
   const storage = SqliteStorage.open(config.dbFile);
   await ensureSupervisor(storage, config, log, new Date(), (text) => process.stderr.write(text));
   const { app, deps } = await createApp({ config, storage, log, version: pkg.version });
@@ -44,7 +46,10 @@ async function main(): Promise<void> {
       demo: config.demo,
       serverKid: deps.serverKey.kid,
     });
-    if (!tls) log.warn('plainHttp', { note: 'no TLS: session cookies are not marked Secure; tablets need https (README)' });
+    if (!tls)
+      log.warn('plainHttp', {
+        note: 'no TLS: session cookies are not marked Secure; tablets need https (README)',
+      });
   });
   server.on('error', (error) => {
     log.error('serverError', { error });

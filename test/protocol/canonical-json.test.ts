@@ -13,7 +13,9 @@ function shuffleKeys(value: unknown, random: () => number): unknown {
 
 describe('canonical JSON', () => {
   it('sorts members by key and writes no whitespace', () => {
-    expect(canonicalJson({ b: 1, a: [true, null, 'x'], c: { z: 1.5, y: -0 } })).toBe('{"a":[true,null,"x"],"b":1,"c":{"y":0,"z":1.5}}');
+    expect(canonicalJson({ b: 1, a: [true, null, 'x'], c: { z: 1.5, y: -0 } })).toBe(
+      '{"a":[true,null,"x"],"b":1,"c":{"y":0,"z":1.5}}',
+    );
     // Keys sort by UTF-16 code units (as RFC 8785 orders them): digits, upper case, lower case, then the rest.
     expect(canonicalJson({ é: 1, a: 2, B: 3, '10': 4, '9': 5 })).toBe('{"10":4,"9":5,"B":3,"a":2,"é":1}');
   });
@@ -22,7 +24,7 @@ describe('canonical JSON', () => {
     fc.assert(
       fc.property(fc.jsonValue(), fc.integer(), (value, seed) => {
         let s = seed;
-        const random = () => ((s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+        const random = () => (s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
         const text = canonicalJson(value);
         expect(canonicalJson(shuffleKeys(value, random))).toBe(text);
         expect(JSON.parse(text)).toEqual(JSON.parse(JSON.stringify(value)));

@@ -48,18 +48,35 @@ describe('enrolment request', () => {
   it('proves possession: the kid is the thumbprint of the key in the request, which signed it', async () => {
     const key = await generateDeviceKey();
     const body = JSON.parse(await signEnrolRequest(key, '7kq2-m9xd', 'Bay 1')) as unknown;
-    expect(await openEnrolRequest(body)).toEqual({ kid: key.kid, jwk: key.publicJwk, code: '7KQ2-M9XD', label: 'Bay 1' });
+    expect(await openEnrolRequest(body)).toEqual({
+      kid: key.kid,
+      jwk: key.publicJwk,
+      code: '7KQ2-M9XD',
+      label: 'Bay 1',
+    });
   });
 
   it('checks the server key against the ticket and the reply', async () => {
     const device = await generateDeviceKey();
     const server = await generateDeviceKey();
-    const reply = { protocol: 1, deviceKid: device.kid, name: 'Bay 1', enrolledAt: '2026-12-01T08:00:00Z', server: { kid: server.kid, jwk: server.publicJwk } };
+    const reply = {
+      protocol: 1,
+      deviceKid: device.kid,
+      name: 'Bay 1',
+      enrolledAt: '2026-12-01T08:00:00Z',
+      server: { kid: server.kid, jwk: server.publicJwk },
+    };
     expect((await checkEnrolReply(reply, device, server.kid)).server.kid).toBe(server.kid);
     expect((await checkEnrolReply(reply, device, null)).server.jwk).toEqual(server.publicJwk);
-    await expect(checkEnrolReply(reply, device, device.kid)).rejects.toThrow(/not the one the enrolment code named/);
-    await expect(checkEnrolReply({ ...reply, server: { kid: device.kid, jwk: server.publicJwk } }, device, null)).rejects.toThrow(/does not match/);
-    await expect(checkEnrolReply({ ...reply, deviceKid: server.kid }, device, null)).rejects.toThrow(/another device/);
+    await expect(checkEnrolReply(reply, device, device.kid)).rejects.toThrow(
+      /not the one the enrolment code named/,
+    );
+    await expect(
+      checkEnrolReply({ ...reply, server: { kid: device.kid, jwk: server.publicJwk } }, device, null),
+    ).rejects.toThrow(/does not match/);
+    await expect(checkEnrolReply({ ...reply, deviceKid: server.kid }, device, null)).rejects.toThrow(
+      /another device/,
+    );
   });
 });
 

@@ -47,9 +47,13 @@ describe('JWS helpers', () => {
     const key = await generateDeviceKey();
     const { crv, kty, x, y } = key.publicJwk;
     // RFC 7638 §3.2: the required members in lexicographic order, no whitespace, SHA-256, base64url.
-    const expected = createHash('sha256').update(`{"crv":"${crv}","kty":"${kty}","x":"${x}","y":"${y}"}`).digest('base64url');
+    const expected = createHash('sha256')
+      .update(`{"crv":"${crv}","kty":"${kty}","x":"${x}","y":"${y}"}`)
+      .digest('base64url');
     expect(key.kid).toBe(expected);
-    expect(await thumbprint(toPublicJwk({ ...key.publicJwk, ext: true, key_ops: ['verify'] }))).toBe(expected);
+    expect(await thumbprint(toPublicJwk({ ...key.publicJwk, ext: true, key_ops: ['verify'] }))).toBe(
+      expected,
+    );
   });
 
   it('refuses a public key that is not P-256 or carries its private part', () => {
@@ -90,22 +94,39 @@ describe('JWS helpers', () => {
   it('refuses anything but the three members of a flattened JWS', () => {
     const ok = { protected: 'eyJ9', payload: 'e30', signature: 'AA' };
     expect(parseFlattenedJws(ok)).toEqual(ok);
-    for (const bad of [null, [], 'a.b.c', { ...ok, header: {} }, { ...ok, payload: '' }, { ...ok, signature: 'a+b/' }, { protected: 'x', payload: 'y' }]) {
+    for (const bad of [
+      null,
+      [],
+      'a.b.c',
+      { ...ok, header: {} },
+      { ...ok, payload: '' },
+      { ...ok, signature: 'a+b/' },
+      { protected: 'x', payload: 'y' },
+    ]) {
       expect(() => parseFlattenedJws(bad)).toThrow();
     }
   });
 
   it('refuses every single flipped bit in header, payload or signature', async () => {
     const key = await generateDeviceKey();
-    const jws = await signJws(canonicalJson({ protocol: 1, n: 42, text: 'seam 7' }), 'batch', key.privateKey, key.kid);
+    const jws = await signJws(
+      canonicalJson({ protocol: 1, n: 42, text: 'seam 7' }),
+      'batch',
+      key.privateKey,
+      key.kid,
+    );
     await fc.assert(
-      fc.asyncProperty(fc.constantFrom('protected', 'payload', 'signature'), fc.nat(), async (member, bit) => {
-        const bytes = Buffer.from(jws[member as keyof FlattenedJws], 'base64url');
-        const i = Math.floor(bit / 8) % bytes.length;
-        bytes[i] = (bytes[i] as number) ^ (1 << bit % 8);
-        const tampered = { ...jws, [member]: bytes.toString('base64url') };
-        expect(await codeOf(verifyJws(tampered, 'batch', key.publicKey))).not.toBe('accepted');
-      }),
+      fc.asyncProperty(
+        fc.constantFrom('protected', 'payload', 'signature'),
+        fc.nat(),
+        async (member, bit) => {
+          const bytes = Buffer.from(jws[member as keyof FlattenedJws], 'base64url');
+          const i = Math.floor(bit / 8) % bytes.length;
+          bytes[i] = (bytes[i] as number) ^ (1 << (bit % 8));
+          const tampered = { ...jws, [member]: bytes.toString('base64url') };
+          expect(await codeOf(verifyJws(tampered, 'batch', key.publicKey))).not.toBe('accepted');
+        },
+      ),
       { numRuns: 200, seed: 11 },
     );
   });

@@ -8,7 +8,8 @@ describe('chaos', () => {
     const tally = await chaos(500, 500);
     expect(tally.runs).toBe(500);
     // The faults really happened, in numbers.
-    for (const fault of ['drop', '503', '502', 'lost', 'duplicate'] as const) expect(tally.faults[fault]).toBeGreaterThan(500);
+    for (const fault of ['drop', '503', '502', 'lost', 'duplicate'] as const)
+      expect(tally.faults[fault]).toBeGreaterThan(500);
     expect(tally.restarts).toBeGreaterThan(50);
     console.log(JSON.stringify({ chaos: { first: 500, ...tally } }));
   }, 240_000);

@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { expect } from 'vitest';
 import { canonicalJson, type SealedBatch } from '../../src/protocol/index.js';
 import { bodies, testSeam, toeReading } from './records.js';
-import { SimDevice, type Sent } from './sim-device.js';
+import type { Sent } from './sim-device.js';
 import { TestClock, testServer, type TestServer } from './support.js';
 
 export const RUNS_PER_DATABASE = 50;
@@ -99,7 +99,11 @@ class Network {
 }
 
 /** One simulated device's life: make records, seal batches, send through the network, sometimes pull. */
-async function run(seed: number, server: { current: TestServer; restart(): Promise<void> }, tally: Tally): Promise<void> {
+async function run(
+  seed: number,
+  server: { current: TestServer; restart(): Promise<void> },
+  tally: Tally,
+): Promise<void> {
   const random = rng(seed);
   const net = new Network(random, tally);
   const device = await server.current.enrolDevice();
@@ -123,9 +127,17 @@ async function run(seed: number, server: { current: TestServer; restart(): Promi
         continue;
       }
       if (random() < 0.25) {
-        device.add('checklistAnswer', crypto.randomUUID(), bodies.answer(seam.id, 'spatter', random() < 0.5 ? 'noneFound' : 'present', 1, at), at);
+        device.add(
+          'checklistAnswer',
+          crypto.randomUUID(),
+          bodies.answer(seam.id, 'spatter', random() < 0.5 ? 'noneFound' : 'present', 1, at),
+          at,
+        );
       } else {
-        const r = toeReading(seam.id, 120 + Math.floor(random() * 60), { position: Math.floor(random() * 900), recordedAt: at });
+        const r = toeReading(seam.id, 120 + Math.floor(random() * 60), {
+          position: Math.floor(random() * 900),
+          recordedAt: at,
+        });
         device.add('reading', r.id, bodies.reading(r), at);
       }
     }
@@ -155,7 +167,8 @@ async function run(seed: number, server: { current: TestServer; restart(): Promi
     await Promise.all(pending.map((b) => sendOne(b)));
     if (random() < 0.15) {
       const pulled = await net.deliver(() => device.pull(server.current, null));
-      if (pulled && ![200, 401, 502, 503].includes(pulled.status)) throw new Error(`seed ${seed}: pull answered ${pulled.status}`);
+      if (pulled && ![200, 401, 502, 503].includes(pulled.status))
+        throw new Error(`seed ${seed}: pull answered ${pulled.status}`);
     }
     server.current.clock.advance(Math.floor(random() * 300_000));
     if (random() < 0.04) {
@@ -184,21 +197,28 @@ async function run(seed: number, server: { current: TestServer; restart(): Promi
 
 /** Runs `runs` seeded runs starting at run number `first`, in groups sharing one database file each. */
 export async function chaos(first: number, runs: number): Promise<Tally> {
-    const tally: Tally = { runs: 0, requests: 0, restarts: 0, records: 0, faults: { none: 0, drop: 0, '503': 0, '502': 0, lost: 0, duplicate: 0 } };
-    const dir = mkdtempSync(join(tmpdir(), 'beadbook-chaos-'));
-    for (let group = first / RUNS_PER_DATABASE; group < (first + runs) / RUNS_PER_DATABASE; group++) {
-      const dbFile = join(dir, `chaos-${group}.sqlite`);
-      const clock = new TestClock();
-      const open = () => testServer({ dbFile, clock, keepOpen: true, synchronous: 'NORMAL' });
-      const server = {
-        current: await open(),
-        async restart() {
-          await this.current.close();
-          this.current = await open();
-        },
-      };
-      for (let i = 0; i < RUNS_PER_DATABASE; i++) await run(SEED + group * RUNS_PER_DATABASE + i, server, tally);
-      await server.current.close();
-    }
+  const tally: Tally = {
+    runs: 0,
+    requests: 0,
+    restarts: 0,
+    records: 0,
+    faults: { none: 0, drop: 0, '503': 0, '502': 0, lost: 0, duplicate: 0 },
+  };
+  const dir = mkdtempSync(join(tmpdir(), 'beadbook-chaos-'));
+  for (let group = first / RUNS_PER_DATABASE; group < (first + runs) / RUNS_PER_DATABASE; group++) {
+    const dbFile = join(dir, `chaos-${group}.sqlite`);
+    const clock = new TestClock();
+    const open = () => testServer({ dbFile, clock, keepOpen: true, synchronous: 'NORMAL' });
+    const server = {
+      current: await open(),
+      async restart() {
+        await this.current.close();
+        this.current = await open();
+      },
+    };
+    for (let i = 0; i < RUNS_PER_DATABASE; i++)
+      await run(SEED + group * RUNS_PER_DATABASE + i, server, tally);
+    await server.current.close();
+  }
   return tally;
 }

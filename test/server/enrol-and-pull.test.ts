@@ -19,7 +19,9 @@ import { bodies, testSeam, toeReading } from './records.js';
 import { SimDevice } from './sim-device.js';
 import { jsonOf, testServer, type TestServer } from './support.js';
 
-async function code(server: TestServer): Promise<{ code: string; ticket: string; expiresAt: string; serverKid: string }> {
+async function code(
+  server: TestServer,
+): Promise<{ code: string; ticket: string; expiresAt: string; serverKid: string }> {
   const res = await server.admin('POST', '/enrolment-codes');
   expect(res.status).toBe(201);
   return jsonOf(res);
@@ -36,8 +38,14 @@ describe('enrolment', () => {
     const sent = await device.enrol(server, issued.code.toLowerCase().replace('-', ' '), 'Tablet in bay 3');
     expect(sent.status).toBe(201);
     const reply = await checkEnrolReply(sent.body, device.key, ticket?.serverKid ?? null);
-    expect(reply).toMatchObject({ protocol: PROTOCOL_VERSION, deviceKid: device.kid, name: 'Tablet in bay 3' });
-    const devices = await jsonOf<{ kid: string; name: string; revokedAt: null }[]>(await server.admin('GET', '/devices'));
+    expect(reply).toMatchObject({
+      protocol: PROTOCOL_VERSION,
+      deviceKid: device.kid,
+      name: 'Tablet in bay 3',
+    });
+    const devices = await jsonOf<{ kid: string; name: string; revokedAt: null }[]>(
+      await server.admin('GET', '/devices'),
+    );
     expect(devices.map((d) => [d.kid, d.name, d.revokedAt])).toEqual([[device.kid, 'Tablet in bay 3', null]]);
   });
 
@@ -50,7 +58,10 @@ describe('enrolment', () => {
     expect(again.status).toBe(200);
     expect((again.body as EnrolReply).deviceKid).toBe(device.kid);
     const second = await SimDevice.create();
-    expect(await second.enrol(server, issued.code)).toMatchObject({ status: 403, body: { error: 'codeUsed' } });
+    expect(await second.enrol(server, issued.code)).toMatchObject({
+      status: 403,
+      body: { error: 'codeUsed' },
+    });
   });
 
   it('refuses an expired code, an unknown code and a malformed one', async () => {
@@ -58,9 +69,18 @@ describe('enrolment', () => {
     const issued = await code(server);
     server.clock.advance(server.deps.config.enrolmentCodeMinutes * 60_000 + 1);
     const device = await SimDevice.create();
-    expect(await device.enrol(server, issued.code)).toMatchObject({ status: 403, body: { error: 'codeExpired' } });
-    expect(await device.enrol(server, 'ZZZZ-ZZZZ')).toMatchObject({ status: 403, body: { error: 'codeUnknown' } });
-    expect(await device.enrol(server, 'K7Q!-M2X')).toMatchObject({ status: 400, body: { error: 'codeMalformed' } });
+    expect(await device.enrol(server, issued.code)).toMatchObject({
+      status: 403,
+      body: { error: 'codeExpired' },
+    });
+    expect(await device.enrol(server, 'ZZZZ-ZZZZ')).toMatchObject({
+      status: 403,
+      body: { error: 'codeUnknown' },
+    });
+    expect(await device.enrol(server, 'K7Q!-M2X')).toMatchObject({
+      status: 400,
+      body: { error: 'codeMalformed' },
+    });
     expect(await server.storage.listDevices()).toEqual([]);
   });
 
@@ -71,10 +91,18 @@ describe('enrolment', () => {
     const attacker = await generateDeviceKey();
     const payload = JSON.stringify({ protocol: 1, type: 'enrol', code: issued.code, jwk: victim.publicJwk });
     const asVictim = jwsBody(await signJws(payload, 'enrol', attacker.privateKey, victim.kid));
-    const res = await server.request('/api/sync/enrol', { method: 'POST', headers: { 'content-type': 'application/jose+json' }, body: asVictim });
+    const res = await server.request('/api/sync/enrol', {
+      method: 'POST',
+      headers: { 'content-type': 'application/jose+json' },
+      body: asVictim,
+    });
     expect(res.status).toBe(401);
     const asAttacker = jwsBody(await signJws(payload, 'enrol', attacker.privateKey, attacker.kid));
-    const res2 = await server.request('/api/sync/enrol', { method: 'POST', headers: { 'content-type': 'application/jose+json' }, body: asAttacker });
+    const res2 = await server.request('/api/sync/enrol', {
+      method: 'POST',
+      headers: { 'content-type': 'application/jose+json' },
+      body: asAttacker,
+    });
     expect(res2.status).toBe(400);
     expect(await jsonOf(res2)).toMatchObject({ error: 'header' });
     expect(await server.storage.listDevices()).toEqual([]);
@@ -86,7 +114,10 @@ describe('enrolment', () => {
     const server = await testServer();
     const device = await server.enrolDevice();
     await server.admin('POST', `/devices/${device.kid}/revoke`);
-    expect(await device.enrol(server, (await code(server)).code)).toMatchObject({ status: 403, body: { error: 'revoked' } });
+    expect(await device.enrol(server, (await code(server)).code)).toMatchObject({
+      status: 403,
+      body: { error: 'revoked' },
+    });
     const again = await server.enrolDevice();
     expect(again.kid).not.toBe(device.kid);
     expect((await server.storage.listDevices()).map((d) => d.revokedAt === null)).toEqual([false, true]);
@@ -100,7 +131,15 @@ describe('pull', () => {
     const otherDevice = await server.enrolDevice();
     const assigned = testSeam();
     expect((await server.admin('PUT', `/seams/${assigned.id}`, { seam: assigned })).status).toBe(201);
-    expect((await server.admin('POST', '/assignments', { seamId: assigned.id, deviceKid: device.kid, note: 'Start at the bow end' })).status).toBe(201);
+    expect(
+      (
+        await server.admin('POST', '/assignments', {
+          seamId: assigned.id,
+          deviceKid: device.kid,
+          note: 'Start at the bow end',
+        })
+      ).status,
+    ).toBe(201);
     // A seam the device worked on (sent records for) gets its decisions too.
     const worked = testSeam();
     device.add('seamSetup', uuidv7(), bodies.seamSetup(worked));
@@ -108,7 +147,16 @@ describe('pull', () => {
     const r = toeReading(worked.id, 150);
     device.add('reading', r.id, bodies.reading(r));
     await device.send(server, await device.seal());
-    expect((await server.admin('POST', '/decisions', { seamId: worked.id, round: 1, outcome: 'rework', comment: 'Grind the toe at 100 mm' })).status).toBe(201);
+    expect(
+      (
+        await server.admin('POST', '/decisions', {
+          seamId: worked.id,
+          round: 1,
+          outcome: 'rework',
+          comment: 'Grind the toe at 100 mm',
+        })
+      ).status,
+    ).toBe(201);
     // Neither for this device:
     const elsewhere = testSeam();
     await server.admin('PUT', `/seams/${elsewhere.id}`, { seam: elsewhere });
@@ -127,9 +175,16 @@ describe('pull', () => {
     ]);
     expect((items[0] as Assignment).seam).toEqual(assigned);
     expect((items[0] as Assignment).note).toBe('Start at the bow end');
-    expect(items[1] as Decision).toMatchObject({ round: 1, outcome: 'rework', comment: 'Grind the toe at 100 mm', decidedBy: 'supervisor' });
+    expect(items[1] as Decision).toMatchObject({
+      round: 1,
+      outcome: 'rework',
+      comment: 'Grind the toe at 100 mm',
+      decidedBy: 'supervisor',
+    });
     // Addressed to this device only: another device cannot use these items.
-    await expect(verifyServerItem(reply.items[0], enrolReply, otherDevice.kid)).rejects.toThrow(/another device/);
+    await expect(verifyServerItem(reply.items[0], enrolReply, otherDevice.kid)).rejects.toThrow(
+      /another device/,
+    );
     // The queue length the device reported shows on the Devices list.
     const listed = (await server.storage.listDevices()).find((d) => d.kid === device.kid);
     expect(listed?.reportedQueue).toBe(7);
@@ -146,15 +201,30 @@ describe('pull', () => {
     const device = await server.enrolDevice();
     const seam = testSeam();
     await server.admin('PUT', `/seams/${seam.id}`, { seam });
-    for (let i = 0; i < 5; i++) await server.admin('POST', '/assignments', { seamId: seam.id, deviceKid: device.kid, note: `n${i}` });
-    const nonce = async () => ((await device.post(server, '/api/sync/nonce', '')).body as { nonce: string }).nonce;
+    for (let i = 0; i < 5; i++)
+      await server.admin('POST', '/assignments', { seamId: seam.id, deviceKid: device.kid, note: `n${i}` });
+    const nonce = async () =>
+      ((await device.post(server, '/api/sync/nonce', '')).body as { nonce: string }).nonce;
     const { signPullRequest } = await import('../../src/protocol/index.js');
     const seen: string[] = [];
     let cursor: string | null = null;
     for (let page = 0; page < 5; page++) {
-      const body = await signPullRequest({ nonce: await nonce(), cursor, queued: 0, limit: 2 }, device.key.privateKey, device.kid);
+      const body = await signPullRequest(
+        { nonce: await nonce(), cursor, queued: 0, limit: 2 },
+        device.key.privateKey,
+        device.kid,
+      );
       const reply = (await device.post(server, '/api/sync/pull', body)).body as PullReply;
-      for (const item of reply.items) seen.push(((await verifyServerItem(item, { kid: server.deps.serverKey.kid, jwk: server.deps.serverKey.publicJwk }, device.kid)) as Assignment).note ?? '');
+      for (const item of reply.items)
+        seen.push(
+          (
+            (await verifyServerItem(
+              item,
+              { kid: server.deps.serverKey.kid, jwk: server.deps.serverKey.publicJwk },
+              device.kid,
+            )) as Assignment
+          ).note ?? '',
+        );
       cursor = reply.cursor;
       if (!reply.more) break;
     }
@@ -168,12 +238,26 @@ describe('pull', () => {
     const nonce = ((await device.post(server, '/api/sync/nonce', '')).body as { nonce: string }).nonce;
     const body = await signPullRequest({ nonce, cursor: null, queued: 0 }, device.key.privateKey, device.kid);
     expect((await device.post(server, '/api/sync/pull', body)).status).toBe(200);
-    expect(await device.post(server, '/api/sync/pull', body)).toMatchObject({ status: 401, body: { error: 'nonce' } });
+    expect(await device.post(server, '/api/sync/pull', body)).toMatchObject({
+      status: 401,
+      body: { error: 'nonce' },
+    });
     const late = ((await device.post(server, '/api/sync/nonce', '')).body as { nonce: string }).nonce;
     server.clock.advance(server.deps.config.nonceSeconds * 1000 + 1);
-    const lateBody = await signPullRequest({ nonce: late, cursor: null, queued: 0 }, device.key.privateKey, device.kid);
-    expect(await device.post(server, '/api/sync/pull', lateBody)).toMatchObject({ status: 401, body: { error: 'nonce' } });
-    const made = await signPullRequest({ nonce: 'x'.repeat(32), cursor: null, queued: 0 }, device.key.privateKey, device.kid);
+    const lateBody = await signPullRequest(
+      { nonce: late, cursor: null, queued: 0 },
+      device.key.privateKey,
+      device.kid,
+    );
+    expect(await device.post(server, '/api/sync/pull', lateBody)).toMatchObject({
+      status: 401,
+      body: { error: 'nonce' },
+    });
+    const made = await signPullRequest(
+      { nonce: 'x'.repeat(32), cursor: null, queued: 0 },
+      device.key.privateKey,
+      device.kid,
+    );
     expect((await device.post(server, '/api/sync/pull', made)).status).toBe(401);
   });
 
@@ -183,7 +267,10 @@ describe('pull', () => {
     const nonce = ((await device.post(server, '/api/sync/nonce', '')).body as { nonce: string }).nonce;
     const payload = JSON.stringify({ protocol: 1, type: 'pull', nonce, cursor: null, outbox: { queued: 0 } });
     const asBatch = jwsBody(await signJws(payload, 'batch', device.key.privateKey, device.kid));
-    expect(await device.post(server, '/api/sync/pull', asBatch)).toMatchObject({ status: 400, body: { error: 'type' } });
+    expect(await device.post(server, '/api/sync/pull', asBatch)).toMatchObject({
+      status: 400,
+      body: { error: 'type' },
+    });
     await server.admin('POST', `/devices/${device.kid}/revoke`);
     expect((await device.pull(server, null)).status).toBe(403);
   });
@@ -191,6 +278,10 @@ describe('pull', () => {
   it('serves the server key, which devices check items against', async () => {
     const server = await testServer();
     const res = await server.request('/api/sync/server-key');
-    expect(await jsonOf(res)).toEqual({ protocol: 1, kid: server.deps.serverKey.kid, jwk: server.deps.serverKey.publicJwk });
+    expect(await jsonOf(res)).toEqual({
+      protocol: 1,
+      kid: server.deps.serverKey.kid,
+      jwk: server.deps.serverKey.publicJwk,
+    });
   });
 });

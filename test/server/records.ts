@@ -6,7 +6,12 @@ import { buttSeam, completeChecklist } from '../support/seam-builder.js';
 export const T0 = '2026-12-01T08:00:00.000Z';
 
 export function testSeam(id: string = uuidv7(), over: Partial<Seam> = {}): Seam {
-  return buttSeam({ id, label: `Seam ${id.slice(-6)}`, acceptance: { edition: 'ISO 5817:2014', level: 'C' }, ...over });
+  return buttSeam({
+    id,
+    label: `Seam ${id.slice(-6)}`,
+    acceptance: { edition: 'ISO 5817:2014', level: 'C' },
+    ...over,
+  });
 }
 
 export function toeReading(seamId: string, toeAngle: number, over: Partial<Reading> = {}): Reading {
@@ -33,7 +38,13 @@ export const bodies = {
     kind: number === 1 ? ('first' as const) : ('afterRepair' as const),
     startedAt,
   }),
-  answer: (seamId: string, item: string, answer: 'noneFound' | 'present' | 'notAccessible', round = 1, answeredAt = T0) => ({
+  answer: (
+    seamId: string,
+    item: string,
+    answer: 'noneFound' | 'present' | 'notAccessible',
+    round = 1,
+    answeredAt = T0,
+  ) => ({
     seamId,
     round,
     item,

@@ -45,14 +45,22 @@ export class SimDevice {
     return this.key.kid;
   }
 
-  add(kind: string, recordId: string, body: { seamId: string }, createdAt = T0): OutboxEntryLike {
+  add(
+    kind: string,
+    recordId: string,
+    body: Readonly<Record<string, unknown>> & { readonly seamId: string },
+    createdAt = T0,
+  ): OutboxEntryLike {
     const entry = { seq: ++this.#seq, recordId, kind, seamId: body.seamId, body, createdAt };
     this.outbox.push(entry);
     this.made.set(recordId, entry);
     return entry;
   }
 
-  async seal(entries: readonly OutboxEntryLike[] = this.unsealed(), deviceGrades?: readonly DeviceGrade[]): Promise<SealedBatch> {
+  async seal(
+    entries: readonly OutboxEntryLike[] = this.unsealed(),
+    deviceGrades?: readonly DeviceGrade[],
+  ): Promise<SealedBatch> {
     const sealed = await sealBatch(
       { deviceSeq: ++this.#batchSeq, entries, ...(deviceGrades ? { deviceGrades } : {}) },
       this.key.privateKey,
@@ -69,7 +77,11 @@ export class SimDevice {
   }
 
   async post(server: Requester, path: string, body: string, contentType = JOSE_JSON): Promise<Sent> {
-    const res = await server.request(path, { method: 'POST', headers: { 'content-type': contentType }, body });
+    const res = await server.request(path, {
+      method: 'POST',
+      headers: { 'content-type': contentType },
+      body,
+    });
     const text = await res.text();
     let parsed: unknown = text;
     try {
@@ -109,7 +121,11 @@ export class SimDevice {
 
   async pull(server: Requester, cursor: string | null, queued = this.outbox.length): Promise<Sent> {
     const nonce = (await this.post(server, '/api/sync/nonce', '')).body as { nonce: string };
-    const body = await signPullRequest({ nonce: nonce.nonce, cursor, queued }, this.key.privateKey, this.key.kid);
+    const body = await signPullRequest(
+      { nonce: nonce.nonce, cursor, queued },
+      this.key.privateKey,
+      this.key.kid,
+    );
     return this.post(server, '/api/sync/pull', body);
   }
 }

@@ -41,7 +41,10 @@ describe('SQLite database file', () => {
 
   it('applies a failing migration not at all', () => {
     const file = tempFile();
-    const broken = [...MIGRATIONS, { version: 2, name: 'broken', sql: 'CREATE TABLE half (x INTEGER); SELECT no_such_function();' }];
+    const broken = [
+      ...MIGRATIONS,
+      { version: 2, name: 'broken', sql: 'CREATE TABLE half (x INTEGER); SELECT no_such_function();' },
+    ];
     expect(() => openDatabase(file, { migrations: broken })).toThrow();
     const db = openDatabase(file);
     expect(db.prepare("SELECT count(*) AS n FROM sqlite_master WHERE name = 'half'").get()).toEqual({ n: 0 });
@@ -51,9 +54,28 @@ describe('SQLite database file', () => {
 });
 
 async function withDevice(storage: Storage, kid = KID_A): Promise<void> {
-  const account = (await storage.findAccount('sup')) ?? (await storage.createAccount({ username: 'sup', role: 'supervisor', passwordHash: 'x', mustChangePassword: false, createdAt: T(0) }));
-  await storage.createEnrolmentCode({ codeHash: `code-${kid}`, createdBy: account.id, createdAt: T(0), expiresAt: T(10) });
-  const outcome = await storage.enrolDevice({ codeHash: `code-${kid}`, now: T(1), kid, publicJwk: '{}', name: `device ${kid[0]}` });
+  const account =
+    (await storage.findAccount('sup')) ??
+    (await storage.createAccount({
+      username: 'sup',
+      role: 'supervisor',
+      passwordHash: 'x',
+      mustChangePassword: false,
+      createdAt: T(0),
+    }));
+  await storage.createEnrolmentCode({
+    codeHash: `code-${kid}`,
+    createdBy: account.id,
+    createdAt: T(0),
+    expiresAt: T(10),
+  });
+  const outcome = await storage.enrolDevice({
+    codeHash: `code-${kid}`,
+    now: T(1),
+    kid,
+    publicJwk: '{}',
+    name: `device ${kid[0]}`,
+  });
   expect(outcome.kind).toBe('enrolled');
 }
 
@@ -85,9 +107,28 @@ function contract(name: string, make: () => Storage) {
   describe(`${name} storage`, () => {
     it('keeps accounts and sessions, and ends sessions at expiry or on request', async () => {
       const s = make();
-      const a = await s.createAccount({ username: 'ana', role: 'supervisor', passwordHash: 'h1', mustChangePassword: true, createdAt: T(0) });
-      await expect(s.createAccount({ username: 'ana', role: 'inspector', passwordHash: 'h', mustChangePassword: false, createdAt: T(0) })).rejects.toThrow();
-      expect(await s.findAccount('ana')).toMatchObject({ id: a.id, role: 'supervisor', passwordHash: 'h1', mustChangePassword: true });
+      const a = await s.createAccount({
+        username: 'ana',
+        role: 'supervisor',
+        passwordHash: 'h1',
+        mustChangePassword: true,
+        createdAt: T(0),
+      });
+      await expect(
+        s.createAccount({
+          username: 'ana',
+          role: 'inspector',
+          passwordHash: 'h',
+          mustChangePassword: false,
+          createdAt: T(0),
+        }),
+      ).rejects.toThrow();
+      expect(await s.findAccount('ana')).toMatchObject({
+        id: a.id,
+        role: 'supervisor',
+        passwordHash: 'h1',
+        mustChangePassword: true,
+      });
       await s.setPassword(a.id, 'h2', false);
       expect(await s.findAccount('ana')).toMatchObject({ passwordHash: 'h2', mustChangePassword: false });
       await s.createSession('t1', a.id, T(0), T(30));
@@ -113,9 +154,16 @@ function contract(name: string, make: () => Storage) {
 
     it('uses an enrolment code once, within its time, and never for a revoked key', async () => {
       const s = make();
-      const sup = await s.createAccount({ username: 'sup', role: 'supervisor', passwordHash: 'x', mustChangePassword: false, createdAt: T(0) });
+      const sup = await s.createAccount({
+        username: 'sup',
+        role: 'supervisor',
+        passwordHash: 'x',
+        mustChangePassword: false,
+        createdAt: T(0),
+      });
       await s.createEnrolmentCode({ codeHash: 'c1', createdBy: sup.id, createdAt: T(0), expiresAt: T(10) });
-      const attempt = (codeHash: string, kid: string, now = T(5)) => s.enrolDevice({ codeHash, now, kid, publicJwk: '{}', name: 'tablet' });
+      const attempt = (codeHash: string, kid: string, now = T(5)) =>
+        s.enrolDevice({ codeHash, now, kid, publicJwk: '{}', name: 'tablet' });
       expect((await attempt('nope', KID_A)).kind).toBe('codeUnknown');
       expect((await attempt('c1', KID_A)).kind).toBe('enrolled');
       expect((await attempt('c1', KID_A)).kind).toBe('alreadyEnrolled');
@@ -138,7 +186,13 @@ function contract(name: string, make: () => Storage) {
       expect(await s.renameDevice(KID_B, 'x')).toBe(false);
       await s.touchDevice(KID_A, T(8), { queued: 12, oldestAt: T(-100) });
       await s.touchDevice(KID_A, T(9));
-      expect(await s.getDevice(KID_A)).toMatchObject({ name: `Tablet "7" <b>`, lastContactAt: T(9), reportedQueue: 12, reportedAt: T(8), reportedOldestAt: T(-100) });
+      expect(await s.getDevice(KID_A)).toMatchObject({
+        name: `Tablet "7" <b>`,
+        lastContactAt: T(9),
+        reportedQueue: 12,
+        reportedAt: T(8),
+        reportedOldestAt: T(-100),
+      });
       await s.revokeDevice(KID_A, T(10));
       await s.revokeDevice(KID_A, T(11));
       expect((await s.getDevice(KID_A))?.revokedAt).toBe(T(10));
@@ -159,21 +213,50 @@ function contract(name: string, make: () => Storage) {
     it('applies a batch: accepted, duplicate, conflicting, parked and rejected records, all in one go', async () => {
       const s = make();
       await withDevice(s);
-      const first = await s.applyBatch(plan('b1', [valid(0, 'r1'), valid(1, 'r2'), { index: 2, status: 'rejected', id: 'r3', reason: 'values.toeAngle: too big' }]));
-      expect(first).toMatchObject({ kind: 'applied', replay: false, seamsChanged: ['seam-1'], conflicts: [] });
+      const first = await s.applyBatch(
+        plan('b1', [
+          valid(0, 'r1'),
+          valid(1, 'r2'),
+          { index: 2, status: 'rejected', id: 'r3', reason: 'values.toeAngle: too big' },
+        ]),
+      );
+      expect(first).toMatchObject({
+        kind: 'applied',
+        replay: false,
+        seamsChanged: ['seam-1'],
+        conflicts: [],
+      });
       if (first.kind !== 'applied') throw new Error();
       expect(first.results.map((r) => r.status)).toEqual(['accepted', 'accepted', 'rejected']);
       const second = await s.applyBatch(
-        plan('b2', [
-          valid(0, 'r1'),
-          valid(1, 'r2', '{"n":"changed"}'),
-          valid(2, 'r4'),
-          valid(3, 'r4', '{"n":2}'),
-          { index: 4, status: 'parked', id: 'p1', kind: 'photo', schemaVersion: 2, seamId: null, record: '{"x":1}' },
-        ], { deviceSeq: 2, payloadSha256: 'sha-b2' }),
+        plan(
+          'b2',
+          [
+            valid(0, 'r1'),
+            valid(1, 'r2', '{"n":"changed"}'),
+            valid(2, 'r4'),
+            valid(3, 'r4', '{"n":2}'),
+            {
+              index: 4,
+              status: 'parked',
+              id: 'p1',
+              kind: 'photo',
+              schemaVersion: 2,
+              seamId: null,
+              record: '{"x":1}',
+            },
+          ],
+          { deviceSeq: 2, payloadSha256: 'sha-b2' },
+        ),
       );
       if (second.kind !== 'applied') throw new Error();
-      expect(second.results.map((r) => r.status)).toEqual(['duplicate', 'rejected', 'accepted', 'duplicate', 'parked']);
+      expect(second.results.map((r) => r.status)).toEqual([
+        'duplicate',
+        'rejected',
+        'accepted',
+        'duplicate',
+        'parked',
+      ]);
       expect(second.conflicts).toEqual(['r2']);
       expect((await s.listRecords({})).map((r) => [r.id, r.body])).toEqual([
         ['r1', '{"n":0}'],
@@ -184,13 +267,23 @@ function contract(name: string, make: () => Storage) {
       expect((await s.listSecurityEvents(5)).map((e) => e.kind)).toEqual(['recordIdConflict']);
       // The same batch again: a replay, nothing changes.
       const dump = JSON.stringify(await s.dumpRecordTables());
-      const replay = await s.applyBatch(plan('b1', [valid(0, 'r1'), valid(1, 'r2'), { index: 2, status: 'rejected', id: 'r3', reason: 'values.toeAngle: too big' }]));
+      const replay = await s.applyBatch(
+        plan('b1', [
+          valid(0, 'r1'),
+          valid(1, 'r2'),
+          { index: 2, status: 'rejected', id: 'r3', reason: 'values.toeAngle: too big' },
+        ]),
+      );
       expect(replay).toMatchObject({ kind: 'applied', replay: true, seamsChanged: [] });
       expect(JSON.stringify(await s.dumpRecordTables())).toBe(dump);
       // The same batch id with another payload, or from another device: refused whole.
-      expect(await s.applyBatch(plan('b1', [valid(0, 'r9')], { payloadSha256: 'other' }))).toMatchObject({ kind: 'conflict' });
+      expect(await s.applyBatch(plan('b1', [valid(0, 'r9')], { payloadSha256: 'other' }))).toMatchObject({
+        kind: 'conflict',
+      });
       await withDevice(s, KID_B);
-      expect(await s.applyBatch(plan('b1', [valid(0, 'r9')], { deviceKid: KID_B }))).toMatchObject({ kind: 'conflict' });
+      expect(await s.applyBatch(plan('b1', [valid(0, 'r9')], { deviceKid: KID_B }))).toMatchObject({
+        kind: 'conflict',
+      });
       expect(JSON.stringify(await s.dumpRecordTables())).toBe(dump);
       await s.close();
     });
@@ -207,7 +300,9 @@ function contract(name: string, make: () => Storage) {
       const s = make();
       await withDevice(s);
       const hostile = `{"label":"x'); DROP TABLE records; --","tag":"<script>alert(1)</script>"}`;
-      await s.applyBatch(plan(`b'); DELETE FROM batches; --`, [valid(0, `r" OR "1"="1`, hostile, `seam'--`)]));
+      await s.applyBatch(
+        plan(`b'); DELETE FROM batches; --`, [valid(0, `r" OR "1"="1`, hostile, `seam'--`)]),
+      );
       const [r] = await s.listRecords({ seamId: `seam'--` });
       expect(r).toMatchObject({ id: `r" OR "1"="1`, body: hostile, batchId: `b'); DELETE FROM batches; --` });
       expect(await s.getBatch(`b'); DELETE FROM batches; --`)).toBeDefined();
@@ -217,15 +312,37 @@ function contract(name: string, make: () => Storage) {
     it("keeps the devices' grades by batch order and never lets an older server grade overwrite a newer one", async () => {
       const s = make();
       await withDevice(s);
-      await s.applyBatch(plan('b2', [valid(0, 'r1')], { deviceSeq: 2, deviceGrades: [{ seamId: 'seam-1', grade: '{"v":2}' }] }));
-      await s.applyBatch(plan('b1', [valid(0, 'r2')], { deviceSeq: 1, payloadSha256: 'x', deviceGrades: [{ seamId: 'seam-1', grade: '{"v":1}' }] }));
+      await s.applyBatch(
+        plan('b2', [valid(0, 'r1')], {
+          deviceSeq: 2,
+          deviceGrades: [{ seamId: 'seam-1', grade: '{"v":2}' }],
+        }),
+      );
+      await s.applyBatch(
+        plan('b1', [valid(0, 'r2')], {
+          deviceSeq: 1,
+          payloadSha256: 'x',
+          deviceGrades: [{ seamId: 'seam-1', grade: '{"v":1}' }],
+        }),
+      );
       expect((await s.listDeviceGrades('seam-1')).map((g) => g.grade)).toEqual(['{"v":2}']);
-      const grade = { seamId: 'seam-1', gradedAt: T(5), state: 'graded', levelMet: 'B', meetsRequired: true, summary: '{}' };
+      const grade = {
+        seamId: 'seam-1',
+        gradedAt: T(5),
+        state: 'graded',
+        levelMet: 'B',
+        meetsRequired: true,
+        summary: '{}',
+      };
       await s.saveServerGrade({ ...grade, basedOn: 2 });
       await s.saveServerGrade({ ...grade, basedOn: 1, levelMet: 'D' });
       expect((await s.getServerGrade('seam-1'))?.levelMet).toBe('B');
       await s.saveServerGrade({ ...grade, basedOn: 3, levelMet: 'C', meetsRequired: false });
-      expect(await s.getServerGrade('seam-1')).toMatchObject({ levelMet: 'C', meetsRequired: false, basedOn: 3 });
+      expect(await s.getServerGrade('seam-1')).toMatchObject({
+        levelMet: 'C',
+        meetsRequired: false,
+        basedOn: 3,
+      });
       await s.close();
     });
 
@@ -233,8 +350,21 @@ function contract(name: string, make: () => Storage) {
       const s = make();
       await withDevice(s, KID_A);
       await withDevice(s, KID_B);
-      const change = (kind: 'assignment' | 'decision', itemId: string, seamId: string, deviceKid: string | null) =>
-        s.addChange({ kind, itemId, seamId, deviceKid, item: `{"id":"${itemId}"}`, createdAt: T(4), createdBy: null });
+      const change = (
+        kind: 'assignment' | 'decision',
+        itemId: string,
+        seamId: string,
+        deviceKid: string | null,
+      ) =>
+        s.addChange({
+          kind,
+          itemId,
+          seamId,
+          deviceKid,
+          item: `{"id":"${itemId}"}`,
+          createdAt: T(4),
+          createdBy: null,
+        });
       await change('assignment', 'a1', 'seam-x', KID_A);
       await change('assignment', 'a2', 'seam-y', KID_B);
       await change('decision', 'd1', 'seam-x', null);
@@ -256,8 +386,15 @@ function contract(name: string, make: () => Storage) {
     it("gives a seam's material: its server set-up and its records in receive order", async () => {
       const s = make();
       await withDevice(s);
-      expect(await s.putSeam({ id: 'seam-1', namespace: 'live', setup: '{"id":"seam-1"}', createdAt: T(0) }, null)).toBe('created');
-      expect(await s.putSeam({ id: 'seam-1', namespace: 'live', setup: '{"id":"seam-1","v":2}', createdAt: T(1) }, null)).toBe('updated');
+      expect(
+        await s.putSeam({ id: 'seam-1', namespace: 'live', setup: '{"id":"seam-1"}', createdAt: T(0) }, null),
+      ).toBe('created');
+      expect(
+        await s.putSeam(
+          { id: 'seam-1', namespace: 'live', setup: '{"id":"seam-1","v":2}', createdAt: T(1) },
+          null,
+        ),
+      ).toBe('updated');
       await s.applyBatch(plan('b1', [valid(0, 'r2'), valid(1, 'r1')]));
       const material = await s.seamMaterial('seam-1');
       expect(material.seam?.setup).toBe('{"id":"seam-1","v":2}');

@@ -9,7 +9,12 @@ import { jsonOf, ORIGIN, SUPERVISOR, testServer, type TestServer } from './suppo
 
 const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
 
-async function post(server: TestServer, path: string, fields: Record<string, string>, headers: Record<string, string> = {}) {
+async function post(
+  server: TestServer,
+  path: string,
+  fields: Record<string, string>,
+  headers: Record<string, string> = {},
+) {
   return server.request(path, {
     method: 'POST',
     headers: { 'content-type': 'application/x-www-form-urlencoded', origin: ORIGIN, ...headers },
@@ -40,7 +45,13 @@ describe('first start', () => {
   it('takes the password from the environment without asking for a change', async () => {
     const storage = SqliteStorage.open(':memory:');
     const shown: string[] = [];
-    await ensureSupervisor(storage, { ...testConfig(), supervisorPassword: 'from the environment' }, memoryLogger(), new Date(), (t) => shown.push(t));
+    await ensureSupervisor(
+      storage,
+      { ...testConfig(), supervisorPassword: 'from the environment' },
+      memoryLogger(),
+      new Date(),
+      (t) => shown.push(t),
+    );
     expect(shown).toEqual([]);
     expect(await storage.findAccount('supervisor')).toMatchObject({ mustChangePassword: false });
     await storage.close();
@@ -75,9 +86,15 @@ describe('sign-in and sessions', () => {
   });
 
   it('refuses wrong credentials alike for a wrong password and an unknown name, and rate-limits sign-in', async () => {
-    const server = await testServer({ config: { limits: { ...testConfig().limits, login: { limit: 3, windowMs: 60_000 } } } });
+    const server = await testServer({
+      config: { limits: { ...testConfig().limits, login: { limit: 3, windowMs: 60_000 } } },
+    });
     const attempt = (username: string, password: string) =>
-      server.request('/api/session', { method: 'POST', headers: { 'content-type': 'application/json', origin: ORIGIN }, body: JSON.stringify({ username, password }) });
+      server.request('/api/session', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', origin: ORIGIN },
+        body: JSON.stringify({ username, password }),
+      });
     const a = await attempt('supervisor', 'wrong password');
     const b = await attempt('nobody', 'wrong password');
     expect([a.status, b.status]).toEqual([401, 401]);
@@ -102,7 +119,11 @@ describe('sign-in and sessions', () => {
       ['GET', '/api/admin/records'],
       ['GET', '/api/admin/security-events'],
     ] as const) {
-      const res = await server.request(path, { method, headers: { origin: ORIGIN, 'content-type': 'application/json' }, body: method === 'GET' ? null : '{}' });
+      const res = await server.request(path, {
+        method,
+        headers: { origin: ORIGIN, 'content-type': 'application/json' },
+        body: method === 'GET' ? null : '{}',
+      });
       expect(res.status, `${method} ${path}`).toBe(401);
     }
     const page = await server.request('/supervisor/devices');
@@ -112,8 +133,20 @@ describe('sign-in and sessions', () => {
 
   it('gives an inspector no supervisor endpoint', async () => {
     const server = await testServer();
-    expect((await server.admin('POST', '/accounts', { username: 'ines', password: 'inspector-pass-1', role: 'inspector' })).status).toBe(201);
-    const res = await server.request('/api/session', { method: 'POST', headers: { 'content-type': 'application/json', origin: ORIGIN }, body: JSON.stringify({ username: 'ines', password: 'inspector-pass-1' }) });
+    expect(
+      (
+        await server.admin('POST', '/accounts', {
+          username: 'ines',
+          password: 'inspector-pass-1',
+          role: 'inspector',
+        })
+      ).status,
+    ).toBe(201);
+    const res = await server.request('/api/session', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', origin: ORIGIN },
+      body: JSON.stringify({ username: 'ines', password: 'inspector-pass-1' }),
+    });
     const cookie = (res.headers.get('set-cookie') ?? '').split(';')[0] ?? '';
     expect((await server.request('/api/admin/devices', { headers: { cookie } })).status).toBe(403);
     expect((await server.request('/supervisor/devices', { headers: { cookie } })).status).toBe(403);
@@ -122,9 +155,20 @@ describe('sign-in and sessions', () => {
   it('refuses changes from another origin', async () => {
     const server = await testServer();
     const cookie = await server.supervisorCookie();
-    const res = await server.request('/api/admin/enrolment-codes', { method: 'POST', headers: { cookie, origin: 'https://evil.example' } });
+    const res = await server.request('/api/admin/enrolment-codes', {
+      method: 'POST',
+      headers: { cookie, origin: 'https://evil.example' },
+    });
     expect(res.status).toBe(403);
-    const res2 = await server.request('/supervisor/devices/code', { method: 'POST', headers: { cookie, 'sec-fetch-site': 'cross-site', 'content-type': 'application/x-www-form-urlencoded' }, body: '' });
+    const res2 = await server.request('/supervisor/devices/code', {
+      method: 'POST',
+      headers: {
+        cookie,
+        'sec-fetch-site': 'cross-site',
+        'content-type': 'application/x-www-form-urlencoded',
+      },
+      body: '',
+    });
     expect(res2.status).toBe(403);
   });
 
@@ -136,7 +180,10 @@ describe('sign-in and sessions', () => {
     expect((await server.request('/api/admin/devices', { headers: { cookie } })).status).toBe(401);
     const fresh = await testServer();
     const c2 = await fresh.supervisorCookie();
-    expect((await fresh.request('/api/session', { method: 'DELETE', headers: { cookie: c2, origin: ORIGIN } })).status).toBe(204);
+    expect(
+      (await fresh.request('/api/session', { method: 'DELETE', headers: { cookie: c2, origin: ORIGIN } }))
+        .status,
+    ).toBe(204);
     expect((await fresh.request('/api/admin/devices', { headers: { cookie: c2 } })).status).toBe(401);
   });
 
@@ -150,11 +197,23 @@ describe('sign-in and sessions', () => {
     expect(signIn.status).toBe(303);
     expect(signIn.headers.get('location')).toBe('/supervisor/password');
     const cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0] ?? '';
-    expect((await server.request('/supervisor/devices', { headers: { cookie } })).headers.get('location')).toBe('/supervisor/password');
+    expect(
+      (await server.request('/supervisor/devices', { headers: { cookie } })).headers.get('location'),
+    ).toBe('/supervisor/password');
     expect((await server.request('/api/admin/devices', { headers: { cookie } })).status).toBe(403);
-    const tooShort = await post(server, '/supervisor/password', { current: oneTime, next: 'short' }, { cookie });
+    const tooShort = await post(
+      server,
+      '/supervisor/password',
+      { current: oneTime, next: 'short' },
+      { cookie },
+    );
     expect(tooShort.status).toBe(400);
-    const changed = await post(server, '/supervisor/password', { current: oneTime, next: 'my own long password' }, { cookie });
+    const changed = await post(
+      server,
+      '/supervisor/password',
+      { current: oneTime, next: 'my own long password' },
+      { cookie },
+    );
     expect(changed.status).toBe(303);
     expect((await server.request('/supervisor/devices', { headers: { cookie } })).status).toBe(200);
     const old = await post(server, '/supervisor/login', { username: 'supervisor', password: oneTime });
@@ -188,12 +247,22 @@ describe('Devices page', () => {
     const server = await testServer();
     const cookie = await server.supervisorCookie();
     const device = await server.enrolDevice('old name');
-    const renamed = await post(server, `/supervisor/devices/${device.kid}/name`, { name: 'Hull tablet 2' }, { cookie });
+    const renamed = await post(
+      server,
+      `/supervisor/devices/${device.kid}/name`,
+      { name: 'Hull tablet 2' },
+      { cookie },
+    );
     expect(await renamed.text()).toContain('Renamed to “Hull tablet 2”.');
     const unconfirmed = await post(server, `/supervisor/devices/${device.kid}/revoke`, {}, { cookie });
     expect(await unconfirmed.text()).toContain('the device was not revoked');
     expect((await server.storage.getDevice(device.kid))?.revokedAt).toBeNull();
-    const revoked = await post(server, `/supervisor/devices/${device.kid}/revoke`, { confirm: 'yes' }, { cookie });
+    const revoked = await post(
+      server,
+      `/supervisor/devices/${device.kid}/revoke`,
+      { confirm: 'yes' },
+      { cookie },
+    );
     expect(await revoked.text()).toContain('revoked');
     expect((await server.storage.getDevice(device.kid))?.revokedAt).toBe(server.clock.now().toISOString());
   });

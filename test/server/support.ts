@@ -61,13 +61,23 @@ export async function testServer(options: TestServerOptions = {}): Promise<TestS
   const config = testConfig(options.config);
   const storage =
     options.storage ??
-    SqliteStorage.open(options.dbFile ?? ':memory:', options.synchronous ? { synchronous: options.synchronous } : {});
+    SqliteStorage.open(
+      options.dbFile ?? ':memory:',
+      options.synchronous ? { synchronous: options.synchronous } : {},
+    );
   const log = memoryLogger();
   const clock = options.clock ?? new TestClock();
-  await ensureSupervisor(storage, { ...config, supervisorPassword: SUPERVISOR.password }, log, clock.now(), () => {});
+  await ensureSupervisor(
+    storage,
+    { ...config, supervisorPassword: SUPERVISOR.password },
+    log,
+    clock.now(),
+    () => {},
+  );
   const built = await createApp({ config, storage, log, now: clock.now });
   let cookie: string | null = null;
-  const request = async (path: string, init?: RequestInit): Promise<Response> => built.app.request(`${ORIGIN}${path}`, init);
+  const request = async (path: string, init?: RequestInit): Promise<Response> =>
+    built.app.request(`${ORIGIN}${path}`, init);
   const server: TestServer = {
     ...built,
     storage,
@@ -101,7 +111,8 @@ export async function testServer(options: TestServerOptions = {}): Promise<TestS
       const { code } = (await res.json()) as { code: string };
       const device = await SimDevice.create();
       const reply = await device.enrol(server, code, label);
-      if (reply.status !== 201) throw new Error(`enrolment failed: ${reply.status} ${JSON.stringify(reply.body)}`);
+      if (reply.status !== 201)
+        throw new Error(`enrolment failed: ${reply.status} ${JSON.stringify(reply.body)}`);
       return device;
     },
     async settle() {
@@ -118,7 +129,9 @@ export async function testServer(options: TestServerOptions = {}): Promise<TestS
 
 /** SHA-256 of a canonical dump of the record tables: equal hashes, byte-identical tables. */
 export async function recordTablesHash(storage: SqliteStorage): Promise<string> {
-  return createHash('sha256').update(canonicalJson(await storage.dumpRecordTables())).digest('hex');
+  return createHash('sha256')
+    .update(canonicalJson(await storage.dumpRecordTables()))
+    .digest('hex');
 }
 
 /** Row counts of the record tables. */
@@ -127,4 +140,5 @@ export async function recordCounts(storage: SqliteStorage): Promise<Record<strin
   return Object.fromEntries(Object.entries(dump).map(([k, rows]) => [k, rows.length]));
 }
 
-export const jsonOf = async <T = Record<string, unknown>>(res: Response): Promise<T> => (await res.json()) as T;
+export const jsonOf = async <T = Record<string, unknown>>(res: Response): Promise<T> =>
+  (await res.json()) as T;

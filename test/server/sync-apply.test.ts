@@ -12,8 +12,11 @@ function queueSeam(device: SimDevice, n: number, seamId = uuidv7()) {
   const seam = testSeam(seamId);
   device.add('seamSetup', uuidv7(), bodies.seamSetup(seam));
   device.add('round', uuidv7(), bodies.round(seam.id));
-  for (const [item, answer] of allNoneFound()) device.add('checklistAnswer', uuidv7(), bodies.answer(seam.id, item, answer));
-  const readings = Array.from({ length: n }, (_, i) => toeReading(seam.id, 150 + (i % 20), { position: 10 + i }));
+  for (const [item, answer] of allNoneFound())
+    device.add('checklistAnswer', uuidv7(), bodies.answer(seam.id, item, answer));
+  const readings = Array.from({ length: n }, (_, i) =>
+    toeReading(seam.id, 150 + (i % 20), { position: 10 + i }),
+  );
   for (const r of readings) device.add('reading', r.id, bodies.reading(r));
   return { seam, readings };
 }
@@ -134,19 +137,29 @@ async function finalState(server: TestServer, seamId: string) {
     .map((r) => ({ id: r.id, kind: r.kind, body: r.body, seq: r.deviceSeq }))
     .sort((a, b) => (a.id < b.id ? -1 : 1));
   const grade = await server.storage.getServerGrade(seamId);
-  return { records, grade: grade && { state: grade.state, levelMet: grade.levelMet, summary: JSON.parse(grade.summary) as unknown } };
+  return {
+    records,
+    grade: grade && {
+      state: grade.state,
+      levelMet: grade.levelMet,
+      summary: JSON.parse(grade.summary) as unknown,
+    },
+  };
 }
 
 describe('F6: batches arriving out of order', () => {
   it('reaches the same final state, grade included, in any order', async () => {
     const device = await SimDevice.create();
     const seam = testSeam();
-    const readings = Array.from({ length: 6 }, (_, i) => toeReading(seam.id, 140 + i * 5, { position: 50 * (i + 1) }));
+    const readings = Array.from({ length: 6 }, (_, i) =>
+      toeReading(seam.id, 140 + i * 5, { position: 50 * (i + 1) }),
+    );
     const correction = toeReading(seam.id, 170, { position: 50, supersedes: readings[0]?.id as string });
     device.add('seamSetup', uuidv7(), bodies.seamSetup(seam));
     device.add('round', uuidv7(), bodies.round(seam.id));
     const b1 = await device.seal();
-    for (const [item, answer] of allNoneFound()) device.add('checklistAnswer', uuidv7(), bodies.answer(seam.id, item, answer));
+    for (const [item, answer] of allNoneFound())
+      device.add('checklistAnswer', uuidv7(), bodies.answer(seam.id, item, answer));
     // The same item answered twice: the later answer (by the device's sequence) must win whatever the order.
     device.add('checklistAnswer', uuidv7(), bodies.answer(seam.id, 'spatter', 'present'));
     const b2 = await device.seal();
@@ -178,7 +191,11 @@ describe('F6: batches arriving out of order', () => {
     }
     const [first, ...rest] = states;
     for (const s of rest) expect(s).toEqual(first);
-    const summary = first?.grade?.summary as { leftOut: unknown[]; readingCount: number; rounds: { complete: boolean }[] };
+    const summary = first?.grade?.summary as {
+      leftOut: unknown[];
+      readingCount: number;
+      rounds: { complete: boolean }[];
+    };
     expect(first?.grade?.state).toBe('graded');
     expect(summary.leftOut).toEqual([]);
     expect(summary.readingCount).toBe(7);
@@ -233,7 +250,9 @@ describe('F10: the server fails while applying', () => {
     expect(JSON.stringify(body)).not.toMatch(/disk on fire|SqliteError|\bat \w|\.ts:|\.js:/);
     expect(device.outbox).toHaveLength(batch.recordIds.length);
     expect(await recordTablesHash(server.storage)).toBe(before);
-    const logged = server.log.lines.find((l) => l['event'] === 'unhandled') as { error: { message: string; stack: string } };
+    const logged = server.log.lines.find((l) => l['event'] === 'unhandled') as {
+      error: { message: string; stack: string };
+    };
     expect(logged.error.message).toContain('disk on fire');
     expect(logged.error.stack).toBeTruthy();
 
@@ -250,13 +269,29 @@ describe('F14: records of a newer schema', () => {
     const server = await testServer();
     const device = await server.enrolDevice();
     const { seam } = queueSeam(device, 1);
-    const newer = { seq: 99, id: uuidv7(), kind: 'photo', schemaVersion: 2, seamId: seam.id, createdAt: '2026-12-01T09:00:00Z', body: { sha256: 'ab'.repeat(32), caption: 'toe at 120 mm' } };
-    const newerReading = { ...newer, id: uuidv7(), kind: 'reading', schemaVersion: 7, body: { seamId: seam.id, reading: { shape: 'unknown to v1' } } };
+    const newer = {
+      seq: 99,
+      id: uuidv7(),
+      kind: 'photo',
+      schemaVersion: 2,
+      seamId: seam.id,
+      createdAt: '2026-12-01T09:00:00Z',
+      body: { sha256: 'ab'.repeat(32), caption: 'toe at 120 mm' },
+    };
+    const newerReading = {
+      ...newer,
+      id: uuidv7(),
+      kind: 'reading',
+      schemaVersion: 7,
+      body: { seamId: seam.id, reading: { shape: 'unknown to v1' } },
+    };
     const entries = [...device.unsealed()];
     const { sealBatch } = await import('../../src/protocol/index.js');
     const raw = await sealBatch({ deviceSeq: 1, entries }, device.key.privateKey, device.kid);
     // Built by hand: a newer device would put the newer records in the same batch.
-    const payload = JSON.parse(Buffer.from(raw.jws.payload, 'base64url').toString('utf8')) as { records: unknown[] };
+    const payload = JSON.parse(Buffer.from(raw.jws.payload, 'base64url').toString('utf8')) as {
+      records: unknown[];
+    };
     payload.records.push(newer, newerReading);
     const { signJws, jwsBody, canonicalJson } = await import('../../src/protocol/index.js');
     const body = jwsBody(await signJws(canonicalJson(payload), 'batch', device.key.privateKey, device.kid));
@@ -267,17 +302,24 @@ describe('F14: records of a newer schema', () => {
       [newer.id, 'parked'],
       [newerReading.id, 'parked'],
     ]);
-    const parked = await jsonOf<{ id: string; schemaVersion: number; record: { body: unknown } }[]>(await server.admin('GET', '/parked'));
+    const parked = await jsonOf<{ id: string; schemaVersion: number; record: { body: unknown } }[]>(
+      await server.admin('GET', '/parked'),
+    );
     expect(parked.map((p) => p.id).sort()).toEqual([newer.id, newerReading.id].sort());
     expect(parked.find((p) => p.id === newer.id)?.record.body).toEqual(newer.body);
     const again = await device.post(server, '/api/sync/batches', body);
-    expect((again.body as BatchReply).results.slice(-2).map((r) => r.status)).toEqual(['duplicate', 'duplicate']);
+    expect((again.body as BatchReply).results.slice(-2).map((r) => r.status)).toEqual([
+      'duplicate',
+      'duplicate',
+    ]);
 
     const clash = toeReading(seam.id, 150, { id: newer.id });
     device.add('reading', clash.id, bodies.reading(clash));
     const clashSent = await device.send(server, await device.seal([device.made.get(clash.id) as never]));
     expect((clashSent.body as BatchReply).results[0]).toMatchObject({ id: newer.id, status: 'rejected' });
-    expect((await server.storage.listRecords({ deviceKid: device.kid })).map((r) => r.id)).not.toContain(newer.id);
+    expect((await server.storage.listRecords({ deviceKid: device.kid })).map((r) => r.id)).not.toContain(
+      newer.id,
+    );
   });
 });
 
@@ -289,10 +331,16 @@ describe('F17: device clocks off by 30 days', () => {
     const ahead = new Date(server.clock.now().getTime() + 30 * day).toISOString();
     const behind = new Date(server.clock.now().getTime() - 30 * day).toISOString();
     const seam = testSeam();
-    device.add('seamSetup', uuidv7(), bodies.seamSetup({ ...seam, label: 'revision 2, clock behind' }, 2, behind), behind);
+    device.add(
+      'seamSetup',
+      uuidv7(),
+      bodies.seamSetup({ ...seam, label: 'revision 2, clock behind' }, 2, behind),
+      behind,
+    );
     device.add('seamSetup', uuidv7(), bodies.seamSetup(seam, 1, ahead), ahead);
     device.add('round', uuidv7(), bodies.round(seam.id, 1, ahead), ahead);
-    for (const [item, answer] of allNoneFound()) device.add('checklistAnswer', uuidv7(), bodies.answer(seam.id, item, answer, 1, ahead), ahead);
+    for (const [item, answer] of allNoneFound())
+      device.add('checklistAnswer', uuidv7(), bodies.answer(seam.id, item, answer, 1, ahead), ahead);
     // Answered later on the device (higher sequence number) although its clock says a month earlier.
     device.add('checklistAnswer', uuidv7(), bodies.answer(seam.id, 'crack', 'present', 1, behind), behind);
     const r = toeReading(seam.id, 160, { recordedAt: behind });
@@ -300,7 +348,9 @@ describe('F17: device clocks off by 30 days', () => {
     const sent = await device.send(server, await device.seal());
     expect(statuses(sent).every((s) => s === 'accepted')).toBe(true);
     await server.settle();
-    const view = await jsonOf<{ setup: { label: string }; serverGrade: { levelMet: string } }>(await server.admin('GET', `/seams/${seam.id}`));
+    const view = await jsonOf<{ setup: { label: string }; serverGrade: { levelMet: string } }>(
+      await server.admin('GET', `/seams/${seam.id}`),
+    );
     expect(view.setup.label).toBe('revision 2, clock behind');
     // A crack found is below every level (ISO 5817 permits no cracks, common practice).
     expect(view.serverGrade.levelMet).toBe('belowD');
@@ -314,7 +364,16 @@ describe('replaying an accepted batch', () => {
     const { seam } = queueSeam(device, 5);
     const bad = toeReading(seam.id, 10);
     device.add('reading', bad.id, bodies.reading(bad));
-    const grades = [{ seamId: seam.id, state: 'graded' as const, levelMet: 'B' as const, meetsRequired: true, readingCount: 5, gradedAt: '2026-12-01T08:30:00Z' }];
+    const grades = [
+      {
+        seamId: seam.id,
+        state: 'graded' as const,
+        levelMet: 'B' as const,
+        meetsRequired: true,
+        readingCount: 5,
+        gradedAt: '2026-12-01T08:30:00Z',
+      },
+    ];
     const batch = await device.seal(device.unsealed(), grades);
     await device.post(server, '/api/sync/batches', batch.body);
     await server.settle();
@@ -350,10 +409,14 @@ describe('the same batch id with another payload', () => {
     expect(sent.status).toBe(422);
     expect(sent.body).toMatchObject({ error: 'batchConflict' });
     expect(await recordTablesHash(server.storage)).toBe(before);
-    const events = await jsonOf<{ kind: string; deviceKid: string; detail: string }[]>(await server.admin('GET', '/security-events'));
+    const events = await jsonOf<{ kind: string; deviceKid: string; detail: string }[]>(
+      await server.admin('GET', '/security-events'),
+    );
     expect(events[0]).toMatchObject({ kind: 'batchConflict', deviceKid: device.kid });
     expect(events[0]?.detail).toContain(batch.batchId);
-    expect(server.log.lines.some((l) => l['event'] === 'security' && l['what'] === 'batchConflict')).toBe(true);
+    expect(server.log.lines.some((l) => l['event'] === 'security' && l['what'] === 'batchConflict')).toBe(
+      true,
+    );
   });
 
   it('is a 422 when another device reuses a batch id', async () => {
@@ -366,7 +429,11 @@ describe('the same batch id with another payload', () => {
     const r = toeReading(uuidv7(), 150);
     b.add('reading', r.id, bodies.reading(r));
     const { sealBatch } = await import('../../src/protocol/index.js');
-    const copy = await sealBatch({ batchId: batch.batchId, deviceSeq: 1, entries: b.unsealed() }, b.key.privateKey, b.kid);
+    const copy = await sealBatch(
+      { batchId: batch.batchId, deviceSeq: 1, entries: b.unsealed() },
+      b.key.privateKey,
+      b.kid,
+    );
     expect((await b.post(server, '/api/sync/batches', copy.body)).status).toBe(422);
     expect(await server.storage.listRecords({ deviceKid: b.kid })).toEqual([]);
   });
@@ -385,8 +452,12 @@ describe('a record id already stored with other content', () => {
     const sent = await device.send(server, await device.seal());
     expect((sent.body as BatchReply).results[0]).toMatchObject({ id: original.id, status: 'rejected' });
     expect((sent.body as BatchReply).results[0]?.reason).toContain('already stored with other content');
-    const stored = (await server.storage.listRecords({ deviceKid: device.kid })).find((r) => r.id === original.id);
-    expect((JSON.parse(stored?.body ?? '{}') as { reading: { values: unknown } }).reading.values).toEqual({ toeAngle: original.values.toeAngle });
+    const stored = (await server.storage.listRecords({ deviceKid: device.kid })).find(
+      (r) => r.id === original.id,
+    );
+    expect((JSON.parse(stored?.body ?? '{}') as { reading: { values: unknown } }).reading.values).toEqual({
+      toeAngle: original.values.toeAngle,
+    });
     const events = await server.storage.listSecurityEvents(10);
     expect(events.map((e) => e.kind)).toContain('recordIdConflict');
   });
@@ -398,7 +469,8 @@ describe('a record id already stored with other content', () => {
     await old.send(server, await old.seal());
     const fresh = await server.enrolDevice();
     // The restored outbox carries the same records with new sequence numbers.
-    for (const e of old.made.values()) fresh.add(e.kind, e.recordId, e.body as { seamId: string }, e.createdAt);
+    for (const e of old.made.values())
+      fresh.add(e.kind, e.recordId, e.body as { seamId: string }, e.createdAt);
     const sent = await fresh.send(server, await fresh.seal());
     expect(statuses(sent).every((s) => s === 'duplicate')).toBe(true);
     expect(fresh.outbox).toEqual([]);
@@ -411,15 +483,32 @@ describe("the server's grade beside the device's", () => {
     const device = await server.enrolDevice();
     const { seam } = queueSeam(device, 3);
     // Valid on its own, but a throat belongs to fillet welds, not to this butt seam.
-    const misfit = { ...toeReading(seam.id, 150), toe: undefined, side: 'face' as const, values: { throat: 4 } };
+    const misfit = {
+      ...toeReading(seam.id, 150),
+      toe: undefined,
+      side: 'face' as const,
+      values: { throat: 4 },
+    };
     delete (misfit as { toe?: unknown }).toe;
     device.add('reading', misfit.id, bodies.reading(misfit));
-    const grades = [{ seamId: seam.id, state: 'graded' as const, levelMet: 'B' as const, meetsRequired: true, readingCount: 3, gradedAt: '2026-12-01T08:30:00Z' }];
+    const grades = [
+      {
+        seamId: seam.id,
+        state: 'graded' as const,
+        levelMet: 'B' as const,
+        meetsRequired: true,
+        readingCount: 3,
+        gradedAt: '2026-12-01T08:30:00Z',
+      },
+    ];
     const sent = await device.send(server, await device.seal(device.unsealed(), grades));
     expect(statuses(sent).every((s) => s === 'accepted')).toBe(true);
     await server.settle();
     const view = await jsonOf<{
-      serverGrade: { state: string; summary: { readingCount: number; leftOut: { recordId: string; reason: string }[] } };
+      serverGrade: {
+        state: string;
+        summary: { readingCount: number; leftOut: { recordId: string; reason: string }[] };
+      };
       deviceGrades: { deviceKid: string; grade: { levelMet: string } }[];
     }>(await server.admin('GET', `/seams/${seam.id}`));
     expect(view.serverGrade.state).toBe('graded');
@@ -427,6 +516,8 @@ describe("the server's grade beside the device's", () => {
     expect(view.serverGrade.summary.leftOut).toEqual([
       { recordId: misfit.id, reason: expect.stringContaining('does not apply to a butt joint') as unknown },
     ]);
-    expect(view.deviceGrades).toEqual([expect.objectContaining({ deviceKid: device.kid, grade: expect.objectContaining({ levelMet: 'B' }) })]);
+    expect(view.deviceGrades).toEqual([
+      expect.objectContaining({ deviceKid: device.kid, grade: expect.objectContaining({ levelMet: 'B' }) }),
+    ]);
   });
 });

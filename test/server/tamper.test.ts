@@ -1,7 +1,13 @@
 // F12: every tampered, mis-signed or unauthorised batch is refused with a 4xx and leaves no record behind.
 import { createHmac } from 'node:crypto';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { canonicalJson, generateDeviceKey, jwsBody, signJws, type SealedBatch } from '../../src/protocol/index.js';
+import {
+  canonicalJson,
+  generateDeviceKey,
+  jwsBody,
+  signJws,
+  type SealedBatch,
+} from '../../src/protocol/index.js';
 import { uuidv7 } from '../../src/store/ids.js';
 import { bodies, testSeam, toeReading } from './records.js';
 import { SimDevice } from './sim-device.js';
@@ -13,7 +19,7 @@ const unb64 = (text: string) => Buffer.from(text, 'base64url');
 function flipBit(segment: string, bit: number): string {
   const bytes = unb64(segment);
   const i = Math.floor(bit / 8) % bytes.length;
-  bytes[i] = (bytes[i] as number) ^ (1 << bit % 8);
+  bytes[i] = (bytes[i] as number) ^ (1 << (bit % 8));
   return bytes.toString('base64url');
 }
 
@@ -24,7 +30,11 @@ let batch: SealedBatch;
 let before: string;
 
 beforeEach(async () => {
-  server = await testServer({ config: { limits: { ...(await import('../../src/server/config.js')).testConfig().limits, batchBytes: 64 * 1024 } } });
+  server = await testServer({
+    config: {
+      limits: { ...(await import('../../src/server/config.js')).testConfig().limits, batchBytes: 64 * 1024 },
+    },
+  });
   device = await server.enrolDevice('tablet A');
   other = await server.enrolDevice('tablet B');
   const seam = testSeam();
@@ -61,7 +71,11 @@ describe('F12: tampering', () => {
   it('refuses a flipped bit anywhere in the protected header', async () => {
     const bits = unb64(batch.jws.protected).length * 8;
     for (let bit = 0; bit < bits; bit += 13) {
-      const sent = await device.post(server, '/api/sync/batches', withParts({ protected: flipBit(batch.jws.protected, bit) }));
+      const sent = await device.post(
+        server,
+        '/api/sync/batches',
+        withParts({ protected: flipBit(batch.jws.protected, bit) }),
+      );
       expect(sent.status, `bit ${bit}`).toBeGreaterThanOrEqual(400);
       expect(sent.status, `bit ${bit}`).toBeLessThan(500);
     }
@@ -76,7 +90,11 @@ describe('F12: tampering', () => {
 
   it('refuses a swapped kid (another enrolled device), however the signature was made', async () => {
     const header = JSON.parse(unb64(batch.jws.protected).toString()) as Record<string, string>;
-    await refused(withParts({ protected: b64(JSON.stringify({ ...header, kid: other.kid })) }), 401, 'signature');
+    await refused(
+      withParts({ protected: b64(JSON.stringify({ ...header, kid: other.kid })) }),
+      401,
+      'signature',
+    );
     // Signed with A's key under B's kid: B's key does not verify it.
     const payloadText = unb64(batch.jws.payload).toString('utf8');
     const forged = await signJws(payloadText, 'batch', device.key.privateKey, other.kid);
@@ -86,24 +104,44 @@ describe('F12: tampering', () => {
   it('refuses alg "none"', async () => {
     const header = b64(JSON.stringify({ alg: 'none', kid: device.kid, typ: 'beadbook-batch+jws' }));
     await refused(withParts({ protected: header, signature: 'AA' }), 400, 'algorithm');
-    await refused(JSON.stringify({ protected: header, payload: batch.jws.payload, signature: '' }), 400, 'malformed');
+    await refused(
+      JSON.stringify({ protected: header, payload: batch.jws.payload, signature: '' }),
+      400,
+      'malformed',
+    );
   });
 
   it('refuses HS256, including one keyed with the public key (algorithm confusion)', async () => {
     const header = b64(JSON.stringify({ alg: 'HS256', kid: device.kid, typ: 'beadbook-batch+jws' }));
     const secret = Buffer.from(canonicalJson(device.key.publicJwk));
-    const signature = createHmac('sha256', secret).update(`${header}.${batch.jws.payload}`).digest('base64url');
+    const signature = createHmac('sha256', secret)
+      .update(`${header}.${batch.jws.payload}`)
+      .digest('base64url');
     await refused(withParts({ protected: header, signature }), 400, 'algorithm');
   });
 
   it('refuses an unknown crit, even when properly signed', async () => {
     // jose will not sign an unknown crit, so the signature is made with WebCrypto directly.
     const header = b64(
-      JSON.stringify({ alg: 'ES256', kid: device.kid, typ: 'beadbook-batch+jws', crit: ['beadbook-urgent'], 'beadbook-urgent': true }),
+      JSON.stringify({
+        alg: 'ES256',
+        kid: device.kid,
+        typ: 'beadbook-batch+jws',
+        crit: ['beadbook-urgent'],
+        'beadbook-urgent': true,
+      }),
     );
     const input = new TextEncoder().encode(`${header}.${batch.jws.payload}`);
-    const sig = await crypto.subtle.sign({ name: 'ECDSA', hash: 'SHA-256' }, device.key.privateKey as CryptoKey, input);
-    const signed = { protected: header, payload: batch.jws.payload, signature: Buffer.from(sig).toString('base64url') };
+    const sig = await crypto.subtle.sign(
+      { name: 'ECDSA', hash: 'SHA-256' },
+      device.key.privateKey as CryptoKey,
+      input,
+    );
+    const signed = {
+      protected: header,
+      payload: batch.jws.payload,
+      signature: Buffer.from(sig).toString('base64url'),
+    };
     const ecdsa = { name: 'ECDSA', hash: 'SHA-256' };
     expect(await crypto.subtle.verify(ecdsa, device.key.publicKey as CryptoKey, sig, input)).toBe(true);
     await refused(JSON.stringify(signed), 400, 'header');
@@ -150,12 +188,17 @@ describe('F12: tampering', () => {
 
   it('refuses a message of another kind (typ) sent as a batch', async () => {
     const payloadText = unb64(batch.jws.payload).toString('utf8');
-    await refused(jwsBody(await signJws(payloadText, 'pull', device.key.privateKey, device.kid)), 400, 'type');
+    await refused(
+      jwsBody(await signJws(payloadText, 'pull', device.key.privateKey, device.kid)),
+      400,
+      'type',
+    );
   });
 
   it('refuses a signed payload of another protocol version or shape', async () => {
     const payload = JSON.parse(unb64(batch.jws.payload).toString('utf8')) as Record<string, unknown>;
-    const sign = async (p: unknown) => jwsBody(await signJws(JSON.stringify(p), 'batch', device.key.privateKey, device.kid));
+    const sign = async (p: unknown) =>
+      jwsBody(await signJws(JSON.stringify(p), 'batch', device.key.privateKey, device.kid));
     await refused(await sign({ ...payload, protocol: 2 }), 400, 'version');
     await refused(await sign({ ...payload, records: [] }), 400, 'malformed');
     await refused(await sign({ ...payload, extra: true }), 400, 'malformed');
@@ -165,6 +208,10 @@ describe('F12: tampering', () => {
   it('a key generated elsewhere cannot sign for an enrolled kid', async () => {
     const stolenName = await generateDeviceKey();
     const payloadText = unb64(batch.jws.payload).toString('utf8');
-    await refused(jwsBody(await signJws(payloadText, 'batch', stolenName.privateKey, device.kid)), 401, 'signature');
+    await refused(
+      jwsBody(await signJws(payloadText, 'batch', stolenName.privateKey, device.kid)),
+      401,
+      'signature',
+    );
   });
 });

@@ -11,10 +11,12 @@ import { readingSide } from '../model/joint.js';
 import type { BendingState } from './bending.js';
 import { positionOf } from './readings.js';
 import type { Setup } from './setup.js';
-import { toeFactor, toeLabel, type ToePick } from './toes.js';
+import { toeLabel, type ToePick } from './toes.js';
+import { effectiveNumbers, notchNumbers, rangeOf, toeNotchFactors } from '../notch/toe-factors.js';
 import type {
   DetailUse,
   EffectiveNotchCheck,
+  EffectiveValue,
   FatFlag,
   FatigueAssessment,
   LifeEstimate,
@@ -226,24 +228,36 @@ function notchToe(setup: Setup, pick: ToePick, b: number): NotchToe {
   const ref = notchReference(pick.geometry.t, setup.material);
   const g = { ...pick.geometry, rho: ref.radiusMm };
   const bl = localBending(b);
-  const f = toeFactor(setup, g, bl);
+  const n = notchNumbers(setup.family, g);
+  const eff = effectiveNumbers(n, bl);
+  const values: EffectiveValue[] = n.bending.map((x, i) => ({
+    formula: x.formula,
+    value: eff.values[i] as number,
+    inRange: eff.inRange[i] as boolean,
+  }));
+  const tensionOut = !n.tension.inRange;
+  const bendingOut = bl !== 0 && !n.bending.some((x) => x.inRange);
   const outside: string[] = [];
-  const tension = f.notch.tension[0];
-  if (tension && !tension.inRange) outside.push(...tension.outside.map((m) => `${tension.source}: ${m}`));
-  if (bl !== 0 && !f.notch.bending.some((x) => x.inRange)) {
-    for (const x of f.notch.bending) outside.push(...x.outside.map((m) => `${x.source}: ${m}`));
-    for (const u of f.notch.unavailable) outside.push(`${u.formula}: ${u.reason}`);
+  if (tensionOut || bendingOut) {
+    // Only here are the messages needed: describe the toe to get them.
+    const d = toeNotchFactors(setup.family, g);
+    const tension = d.tension[0];
+    if (tensionOut && tension) outside.push(...tension.outside.map((m) => `${tension.source}: ${m}`));
+    if (bendingOut) {
+      for (const x of d.bending) outside.push(...x.outside.map((m) => `${x.source}: ${m}`));
+      for (const u of d.unavailable) outside.push(`${u.formula}: ${u.reason}`);
+    }
   }
-  const values = f.effective.filter((v) => v.inRange || bl === 0);
-  const kw = outside.length ? null : Math.max(...values.map((v) => v.value));
+  let kw = -Infinity;
+  for (const v of values) if (v.inRange || bl === 0) kw = Math.max(kw, v.value);
   return {
     toe: pick.toe,
     label: toeLabel(setup, pick.toe),
     referenceRadiusMm: ref.radiusMm,
-    values: f.effective,
-    range: f.range,
+    values,
+    range: rangeOf(eff.values, eff.inRange),
     outside,
-    fatEquivalent: kw === null || !Number.isFinite(kw) || kw <= 0 ? null : ref.fat / kw,
+    fatEquivalent: outside.length || !Number.isFinite(kw) || kw <= 0 ? null : ref.fat / kw,
   };
 }
 

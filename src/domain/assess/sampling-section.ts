@@ -76,11 +76,10 @@ interface Group {
   readonly name: ParameterName;
   readonly place: string;
   readonly points: {
-    readonly readingIds: string[];
     readonly positions: number[];
     readonly values: number[];
     readonly margins: (number | null)[];
-    readonly resolutions: (number | null)[];
+    coarsestResolution: number | null;
   };
   required: string | null;
 }
@@ -108,7 +107,6 @@ export function samplingSection(
     if (r.sampling !== 'atPitch') return;
     const rg: ReadingGrade | undefined = graded ? graded.get(r.id) : gradedReadings[index];
     const imperfections = rg?.imperfections ?? NONE;
-    const id = r.id;
     const position = positionOf(r);
     const resMm = r.instrument.resolutionMm ?? null;
     const resDeg = r.instrument.resolutionDeg ?? null;
@@ -125,24 +123,26 @@ export function samplingSection(
         g = {
           name,
           place: PLACES[place] as string,
-          points: { readingIds: [], positions: [], values: [], margins: [], resolutions: [] },
+          points: { positions: [], values: [], margins: [], coarsestResolution: null },
           required: null,
         };
         groups.set(key, g);
       }
       let margin: number | null = null;
-      for (const imp of imperfections) {
+      for (let k = 0; k < imperfections.length; k++) {
+        const imp = imperfections[k] as ReadingGrade['imperfections'][number];
         if (imp.margin === null || rows.get(imp.rowId) !== name) continue;
         margin = margin === null ? imp.margin : Math.min(margin, imp.margin);
         g.required ??= imp.required;
       }
       const resolution = PARAMETERS[name].unit === 'mm' ? resMm : resDeg;
       const c = g.points;
-      c.readingIds.push(id);
       c.positions.push(position);
       c.values.push(value);
       c.margins.push(margin);
-      c.resolutions.push(resolution);
+      if (resolution !== null && (c.coarsestResolution === null || resolution > c.coarsestResolution)) {
+        c.coarsestResolution = resolution;
+      }
     }
   });
 

@@ -17,14 +17,13 @@ export interface Fixed {
   readonly stressRange: number | null;
 }
 
-interface Outcome {
-  readonly life: number | null;
-  readonly toes: readonly number[];
-  readonly b: readonly number[];
-}
-
 function lifeFrom(b: readonly number[], fixed: Fixed): number | null {
-  if (!fixed.kmMeasured || fixed.covered === null || fixed.fatTimesThickness === null || fixed.stressRange === null) {
+  if (
+    !fixed.kmMeasured ||
+    fixed.covered === null ||
+    fixed.fatTimesThickness === null ||
+    fixed.stressRange === null
+  ) {
     return null;
   }
   const kmCalc = 1 + Math.max(0, ...b);
@@ -32,8 +31,7 @@ function lifeFrom(b: readonly number[], fixed: Fixed): number | null {
   return cyclesToFailure(fixed.stressRange, fixed.fatTimesThickness / kmEff);
 }
 
-/** A measured input to move: a misalignment (moves km, life and every toe) or one toe's geometry (moves that toe). */
-interface Input {
+interface Row {
   readonly input: string;
   readonly where: string;
   readonly readingId: string;
@@ -41,108 +39,9 @@ interface Input {
   readonly unit: 'mm' | 'deg';
   readonly uncertainty: number;
   readonly basis: string;
-  readonly moveMisalignment?: (d: number) => MisalignmentInputs;
-  readonly moveToe?: { readonly index: number; readonly to: (d: number) => ToeGeometry };
 }
 
-function misalignmentInputs(mis: MisalignmentInputs): Input[] {
-  const out: Input[] = [];
-  const add = (kind: 'e' | 'a', m: Measured | null, where: string): void => {
-    const name = kind === 'e' ? 'linear misalignment e' : 'angular misalignment';
-    if (!m || out.some((x) => x.readingId === m.readingId && x.input === name)) return;
-    out.push({
-      input: name,
-      where: `${where} at ${m.position} mm`,
-      readingId: m.readingId,
-      value: m.value,
-      unit: kind === 'e' ? 'mm' : 'deg',
-      uncertainty: m.resolution,
-      basis: m.resolutionBasis,
-      moveMisalignment: (d) => {
-        // The same reading may be both the highest and the lowest of its kind: move it in both places.
-        const move = (x: Measured | null): Measured | null =>
-          x && x.readingId === m.readingId ? { ...x, value: x.value + d } : x;
-        return kind === 'e'
-          ? { ...mis, eHi: move(mis.eHi), eLo: move(mis.eLo) }
-          : { ...mis, aHi: move(mis.aHi), aLo: move(mis.aLo) };
-      },
-    });
-  };
-  add('e', mis.eHi, 'most positive');
-  add('e', mis.eLo, 'most negative');
-  add('a', mis.aHi, 'most positive');
-  add('a', mis.aLo, 'most negative');
-  return out;
-}
-
-function toeInputs(setup: Setup, picks: readonly ToePick[]): Input[] {
-  const out: Input[] = [];
-  picks.forEach((p, index) => {
-    const where = `${toeLabel(setup, p.toe)} at ${positionOf(p.reading)} mm`;
-    const deg = resolutionOf(p.reading, 'deg');
-    const mm = resolutionOf(p.reading, 'mm');
-    const g = p.geometry;
-    const angle = 180 - g.flankDeg;
-    const common = { readingId: p.reading.id, where };
-    out.push({
-      ...common,
-      input: 'toe angle',
-      value: angle,
-      unit: 'deg',
-      uncertainty: deg.value,
-      basis: deg.basis,
-      moveToe: { index, to: (d) => ({ ...g, flankDeg: 180 - Math.min(180, Math.max(90, angle + d)) }) },
-    });
-    if (p.radiusBasis === 'measured') {
-      out.push({
-        ...common,
-        input: 'toe radius',
-        value: g.rho,
-        unit: 'mm',
-        uncertainty: mm.value,
-        basis: mm.basis,
-        moveToe: { index, to: (d) => ({ ...g, rho: Math.max(1e-3, g.rho + d) }) },
-      });
-    }
-    const h = g.h;
-    if (h !== undefined) {
-      out.push({
-        ...common,
-        where: `${where} (${p.hBasis ?? ''})`,
-        input: 'reinforcement height',
-        value: h,
-        unit: 'mm',
-        uncertainty: mm.value,
-        basis: mm.basis,
-        moveToe: { index, to: (d) => ({ ...g, h: Math.max(1e-6, h + d) }) },
-      });
-    }
-  });
-  return out;
-}
-
-/** Life and toe factors with one input moved by d. */
-function moved(
-  setup: Setup,
-  inp: Input,
-  d: number,
-  base: Outcome,
-  notches: readonly NotchNumbers[],
-  picks: readonly ToePick[],
-  fixed: Fixed,
-): Outcome {
-  if (inp.moveToe) {
-    // One toe's geometry: km, life and the other toes stay as they were.
-    const { index, to } = inp.moveToe;
-    const p = picks[index] as ToePick;
-    const toes = [...base.toes];
-    toes[index] = toeScore(setup, to(d), base.b[p.surface] ?? 0);
-    return { life: base.life, toes, b: base.b };
-  }
-  // A misalignment: every toe keeps its notch factors; only the secondary bending moves.
-  const { b } = bendingOf(setup, (inp.moveMisalignment as (d: number) => MisalignmentInputs)(d));
-  return { life: lifeFrom(b, fixed), toes: picks.map((p, i) => effectiveMax(notches[i] as NotchNumbers, b[p.surface] ?? 0)), b };
-}
+const finite = (x: number): number => (Number.isFinite(x) ? Math.abs(x) : 0);
 
 /** One-at-a-time sensitivity of the life and of each toe's factor to every measured input over its uncertainty. */
 export function sensitivitySection(
@@ -152,46 +51,132 @@ export function sensitivitySection(
   fixed: Fixed,
 ): Sensitivity {
   const notches = picks.map((p) => notchNumbers(setup.family, p.geometry));
-  const { b } = bendingOf(setup, mis);
-  const base: Outcome = {
-    life: lifeFrom(b, fixed),
-    toes: picks.map((p, i) => effectiveMax(notches[i] as NotchNumbers, b[p.surface] ?? 0)),
-    b,
-  };
-  const byLife = base.life !== null && Number.isFinite(base.life);
+  const base = bendingOf(setup, mis).b;
+  const baseLife = lifeFrom(base, fixed);
+  const baseToes = picks.map((p, i) => effectiveMax(notches[i] as NotchNumbers, base[p.surface] ?? 0));
+  const byLife = baseLife !== null && Number.isFinite(baseLife);
+  const rel = (x: number | null): number => (x === null || baseLife === null ? 0 : x / baseLife - 1);
   const labels = picks.map((p) => toeLabel(setup, p.toe));
-  const finite = (x: number): number => (Number.isFinite(x) ? Math.abs(x) : 0);
-  const rel = (x: number | null): number => (x === null || base.life === null ? 0 : x / base.life - 1);
-  const rows: SensitivityRow[] = [...misalignmentInputs(mis), ...toeInputs(setup, picks)].map((inp) => {
-    const lo = moved(setup, inp, -inp.uncertainty, base, notches, picks, fixed);
-    const hi = moved(setup, inp, inp.uncertainty, base, notches, picks, fixed);
-    const life = byLife ? { minus: rel(lo.life), plus: rel(hi.life) } : null;
+  const rows: SensitivityRow[] = [];
+  const push = (
+    r: Row,
+    life: { minus: number; plus: number } | null,
+    toeFactors: SensitivityRow['toeFactors'],
+  ): void => {
     let toeMagnitude = 0;
-    const toeFactors = labels.map((label, i) => {
-      const minus = (lo.toes[i] as number) - (base.toes[i] as number);
-      const plus = (hi.toes[i] as number) - (base.toes[i] as number);
-      toeMagnitude = Math.max(toeMagnitude, finite(minus), finite(plus));
-      return { label, minus, plus };
-    });
-    return {
-      input: inp.input,
-      where: inp.where,
-      readingId: inp.readingId,
-      value: inp.value,
-      unit: inp.unit,
-      uncertainty: inp.uncertainty,
-      uncertaintyBasis: inp.basis,
+    for (const t of toeFactors) toeMagnitude = Math.max(toeMagnitude, finite(t.minus), finite(t.plus));
+    rows.push({
+      input: r.input,
+      where: r.where,
+      readingId: r.readingId,
+      value: r.value,
+      unit: r.unit,
+      uncertainty: r.uncertainty,
+      uncertaintyBasis: r.basis,
       life,
       toeFactors,
       magnitude: life ? Math.max(finite(life.minus), finite(life.plus)) : toeMagnitude,
       toeMagnitude,
+    });
+  };
+
+  // A misalignment moves km, so life and every toe; the toes keep their notch factors.
+  const seen = new Set<string>();
+  const misalignment = (kind: 'e' | 'a', m: Measured | null, where: string): void => {
+    const input = kind === 'e' ? 'linear misalignment e' : 'angular misalignment';
+    if (!m || seen.has(`${kind}|${m.readingId}`)) return;
+    seen.add(`${kind}|${m.readingId}`);
+    const at = (d: number): readonly number[] => {
+      // The same reading may be both the highest and the lowest of its kind: move it in both places.
+      const move = (x: Measured | null): Measured | null =>
+        x && x.readingId === m.readingId ? { ...x, value: x.value + d } : x;
+      const next =
+        kind === 'e'
+          ? { ...mis, eHi: move(mis.eHi), eLo: move(mis.eLo) }
+          : { ...mis, aHi: move(mis.aHi), aLo: move(mis.aLo) };
+      return bendingOf(setup, next).b;
     };
+    const lo = at(-m.resolution);
+    const hi = at(m.resolution);
+    const toeFactors = picks.map((p, i) => {
+      const n = notches[i] as NotchNumbers;
+      const b0 = baseToes[i] as number;
+      return {
+        label: labels[i] as string,
+        minus: effectiveMax(n, lo[p.surface] ?? 0) - b0,
+        plus: effectiveMax(n, hi[p.surface] ?? 0) - b0,
+      };
+    });
+    push(
+      {
+        input,
+        where: `${where} at ${m.position} mm`,
+        readingId: m.readingId,
+        value: m.value,
+        unit: kind === 'e' ? 'mm' : 'deg',
+        uncertainty: m.resolution,
+        basis: m.resolutionBasis,
+      },
+      byLife ? { minus: rel(lifeFrom(lo, fixed)), plus: rel(lifeFrom(hi, fixed)) } : null,
+      toeFactors,
+    );
+  };
+  misalignment('e', mis.eHi, 'most positive');
+  misalignment('e', mis.eLo, 'most negative');
+  misalignment('a', mis.aHi, 'most positive');
+  misalignment('a', mis.aLo, 'most negative');
+
+  // A toe's geometry moves only that toe: km and life stay, the other toes stay (left out of its row).
+  picks.forEach((p, i) => {
+    const g = p.geometry;
+    const b = base[p.surface] ?? 0;
+    const b0 = baseToes[i] as number;
+    const where = `${labels[i] as string} at ${positionOf(p.reading)} mm`;
+    const life = byLife ? { minus: 0, plus: 0 } : null;
+    const one = (
+      input: string,
+      value: number,
+      unit: 'mm' | 'deg',
+      res: { value: number; basis: string },
+      to: (x: number) => ToeGeometry,
+      at = where,
+    ): void => {
+      const minus = toeScore(setup, to(value - res.value), b) - b0;
+      const plus = toeScore(setup, to(value + res.value), b) - b0;
+      push(
+        { input, where: at, readingId: p.reading.id, value, unit, uncertainty: res.value, basis: res.basis },
+        life,
+        [{ label: labels[i] as string, minus, plus }],
+      );
+    };
+    const deg = resolutionOf(p.reading, 'deg');
+    const mm = resolutionOf(p.reading, 'mm');
+    one('toe angle', 180 - g.flankDeg, 'deg', deg, (x) => ({
+      ...g,
+      flankDeg: 180 - Math.min(180, Math.max(90, x)),
+    }));
+    if (p.radiusBasis === 'measured')
+      one('toe radius', g.rho, 'mm', mm, (x) => ({ ...g, rho: Math.max(1e-3, x) }));
+    if (g.h !== undefined) {
+      one(
+        'reinforcement height',
+        g.h,
+        'mm',
+        mm,
+        (x) => ({ ...g, h: Math.max(1e-6, x) }),
+        `${where} (${p.hBasis ?? ''})`,
+      );
+    }
   });
+
   // By life first; inputs that leave life alone (a toe under a root-crack class) by their effect on the toes.
-  rows.sort((x, y) => y.magnitude - x.magnitude || y.toeMagnitude - x.toeMagnitude || x.input.localeCompare(y.input));
+  rows.sort(
+    (x, y) => y.magnitude - x.magnitude || y.toeMagnitude - x.toeMagnitude || x.input.localeCompare(y.input),
+  );
   const assumptions = [
     'one input at a time, lowered and raised by its instrument resolution; everything else as measured',
     'the fatigue class, km,covered and the design stress range are held fixed',
+    'a toe-geometry input lists only its own toe: the other toes do not change',
   ];
   if (!byLife) assumptions.push('life not assessable: inputs ranked by their effect on the toe factors');
   return { caution: INDICATIVE_CAUTION, assumptions, rankedBy: byLife ? 'life' : 'toe factor', rows };

@@ -158,8 +158,8 @@ export function effectiveMaxOf(joint: NotchJoint, g: ToeGeometry, b: number): nu
   const flag = { inside: false };
   let inside = -Infinity;
   let all = -Infinity;
-  for (const which of [0, 1] as const) {
-    const kb = bendingValue(joint, g, which, flag);
+  for (let which = 0; which < 2; which++) {
+    const kb = bendingValue(joint, g, which === 0 ? 0 : 1, flag);
     if (Number.isNaN(kb)) continue;
     const v = kt + kb * b;
     all = Math.max(all, v);
@@ -202,6 +202,11 @@ function described(x: FormulaNumber, outside: readonly string[], notes: string[]
   };
 }
 
+const LAWRENCE_NOTES: Readonly<Record<NotchJoint, readonly string[]>> = {
+  butt: [`α_L = ${LAWRENCE_ALPHA.butt} (butt weld, axial; recalled)`],
+  fillet: [`α_L = ${LAWRENCE_ALPHA.fillet} (T or transverse fillet, axial; recalled)`, 'α_L of the non-load-carrying T joint used'],
+};
+
 /** Every applicable notch formula for one toe, with its validity messages and notes. */
 export function toeNotchFactors(joint: NotchJoint, g: ToeGeometry): ToeNotch {
   const n = notchNumbers(joint, g);
@@ -223,10 +228,7 @@ export function toeNotchFactors(joint: NotchJoint, g: ToeGeometry): ToeNotch {
   if (joint === 'butt' && g.h === undefined) {
     unavailable.push({ formula: 'kiyakButtBending', reason: 'needs the reinforcement height h on the toe’s side' });
   }
-  const alphaL = alphaOf(joint);
-  const lawNotes = [`α_L = ${alphaL} (${joint === 'butt' ? 'butt weld' : 'T or transverse fillet'}, axial; recalled)`];
-  if (joint === 'fillet') lawNotes.push('α_L of the non-load-carrying T joint used');
-  const tension = [described(n.tension, lawrenceOutside(g.flankDeg, g.t, g.rho), lawNotes)];
+  const tension = [described(n.tension, lawrenceOutside(g.flankDeg, g.t, g.rho), [...LAWRENCE_NOTES[joint]])];
   return { bending, tension, unavailable };
 }
 

@@ -18,13 +18,15 @@ export interface SamplePoint {
   readonly resolution: number | null;
 }
 
-/** The same points as parallel columns (what the seam assessment builds, without an object per point). */
+/**
+ * The same points as parallel columns, in reading-id order (what the seam assessment builds, without an object
+ * per point), with the coarsest instrument resolution among them.
+ */
 export interface SampleColumns {
-  readonly readingIds: readonly string[];
   readonly positions: readonly number[];
   readonly values: readonly number[];
   readonly margins: readonly (number | null)[];
-  readonly resolutions: readonly (number | null)[];
+  readonly coarsestResolution: number | null;
 }
 
 export interface AdequacyInput {
@@ -106,41 +108,36 @@ function series(positions: readonly number[], means: readonly number[]): Running
   return out;
 }
 
-/** Points as columns, in order along the seam (position, then reading id). */
+/** Points as columns in order along the seam: by position, ties in reading-id order (a stable sort). */
 function columnsOf(points: readonly SamplePoint[] | SampleColumns): SampleColumns {
-  const c: SampleColumns = Array.isArray(points)
-    ? {
-        readingIds: (points as readonly SamplePoint[]).map((p) => p.readingId),
-        positions: (points as readonly SamplePoint[]).map((p) => p.position),
-        values: (points as readonly SamplePoint[]).map((p) => p.value),
-        margins: (points as readonly SamplePoint[]).map((p) => p.margin),
-        resolutions: (points as readonly SamplePoint[]).map((p) => p.resolution),
-      }
-    : (points as SampleColumns);
-  const { positions: pos, readingIds: ids } = c;
-  const before = (a: number, b: number): boolean =>
-    (pos[a] as number) < (pos[b] as number) || (pos[a] === pos[b] && (ids[a] as string) < (ids[b] as string));
+  let c: SampleColumns;
+  if (Array.isArray(points)) {
+    const byId = [...(points as readonly SamplePoint[])].sort((a, b) => (a.readingId < b.readingId ? -1 : a.readingId > b.readingId ? 1 : 0));
+    let coarsest: number | null = null;
+    for (const p of byId) if (p.resolution !== null && (coarsest === null || p.resolution > coarsest)) coarsest = p.resolution;
+    c = {
+      positions: byId.map((p) => p.position),
+      values: byId.map((p) => p.value),
+      margins: byId.map((p) => p.margin),
+      coarsestResolution: coarsest,
+    };
+  } else {
+    c = points as SampleColumns;
+  }
+  const pos = c.positions;
   let ordered = true;
-  for (let i = 1; i < pos.length && ordered; i++) ordered = !before(i, i - 1);
+  for (let i = 1; i < pos.length && ordered; i++) ordered = (pos[i] as number) >= (pos[i - 1] as number);
   if (ordered) return c;
-  // Readings are usually taken walking along the seam; otherwise sort an index and reorder every column.
-  const order = pos.map((_, i) => i).sort((a, b) => (before(a, b) ? -1 : before(b, a) ? 1 : 0));
+  // Readings are usually taken walking along the seam; otherwise order an index and every column by it.
+  const order = pos.map((_, i) => i).sort((a, b) => (pos[a] as number) - (pos[b] as number));
   const pick = <T>(xs: readonly T[]): T[] => order.map((i) => xs[i] as T);
-  return {
-    readingIds: pick(c.readingIds),
-    positions: pick(c.positions),
-    values: pick(c.values),
-    margins: pick(c.margins),
-    resolutions: pick(c.resolutions),
-  };
+  return { positions: pick(c.positions), values: pick(c.values), margins: pick(c.margins), coarsestResolution: c.coarsestResolution };
 }
 
 function riskOf(input: AdequacyInput, c: SampleColumns): Risk | { notAssessed: string } {
   if (input.riskUnavailable) return { notAssessed: input.riskUnavailable };
-  const margins: number[] = [];
-  for (const m of c.margins) if (m !== null && Number.isFinite(m)) margins.push(m);
-  if (margins.length < 2) return { notAssessed: 'needs at least 2 graded at-pitch positions' };
-  const m = meanAndSd(margins);
+  const m = meanAndSd(c.margins);
+  if (m.n < 2) return { notAssessed: 'needs at least 2 graded at-pitch positions' };
   const one = predictiveBelow(0, m.mean, m.sd, m.n);
   const positions = c.positions;
   const pitch = pitchOf(positions);
@@ -171,8 +168,7 @@ const DEFAULT = 'default resolution (instrument resolution not recorded)';
 export function adequacyOf(input: AdequacyInput): Adequacy {
   const c = columnsOf(input.points);
   const { values, positions } = c;
-  let coarsest = -Infinity;
-  for (const r of c.resolutions) if (r !== null && r > coarsest) coarsest = r;
+  const coarsest = c.coarsestResolution ?? -Infinity;
   const stats = meanAndSd(values);
   const target =
     input.target !== undefined

@@ -7,12 +7,14 @@ export interface MeanSd {
   readonly sd: number;
 }
 
-// Welford's running algorithm (Technometrics 4, 1962): mean and sample standard deviation in one pass.
-export function meanAndSd(xs: readonly number[]): MeanSd {
+// Welford's running algorithm (Technometrics 4, 1962): mean and sample standard deviation in one pass; nulls skipped.
+export function meanAndSd(xs: readonly (number | null)[]): MeanSd {
   let mean = 0;
   let m2 = 0;
   let n = 0;
-  for (const x of xs) {
+  for (let i = 0; i < xs.length; i++) {
+    const x = xs[i];
+    if (x === null || x === undefined || !Number.isFinite(x)) continue;
     n++;
     const d = x - mean;
     mean += d / n;

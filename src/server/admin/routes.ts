@@ -13,17 +13,33 @@ import { parseInput } from '../http/validate.js';
 import type { Account } from '../storage/types.js';
 import { assignSeam, checkSeamSetup, decide, issueEnrolmentCode, putSeam, seamView } from './service.js';
 
-const id = v.pipe(v.string('must be a string'), v.minLength(1, 'must not be empty'), v.maxLength(64, 'must be at most 64 characters'));
+const id = v.pipe(
+  v.string('must be a string'),
+  v.minLength(1, 'must not be empty'),
+  v.maxLength(64, 'must be at most 64 characters'),
+);
 const kid = v.pipe(v.string(), v.regex(KID_PATTERN, 'must be a device kid'));
-const deviceName = v.pipe(v.string('must be a string'), v.trim(), v.minLength(1, 'must not be empty'), v.maxLength(80, 'must be at most 80 characters'));
+const deviceName = v.pipe(
+  v.string('must be a string'),
+  v.trim(),
+  v.minLength(1, 'must not be empty'),
+  v.maxLength(80, 'must be at most 80 characters'),
+);
 
 const accountInput = v.strictObject({
-  username: v.pipe(v.string(), v.regex(/^[A-Za-z0-9._-]{1,40}$/, 'may hold 1 to 40 letters, digits, dots, dashes and underscores')),
+  username: v.pipe(
+    v.string(),
+    v.regex(/^[A-Za-z0-9._-]{1,40}$/, 'may hold 1 to 40 letters, digits, dots, dashes and underscores'),
+  ),
   password: newPasswordSchema,
   role: v.picklist(['supervisor', 'inspector'], 'must be "supervisor" or "inspector"'),
 });
 const seamInput = v.strictObject({ seam: v.unknown() });
-const assignmentInput = v.strictObject({ seamId: id, deviceKid: kid, note: v.optional(v.pipe(v.string(), v.maxLength(500))) });
+const assignmentInput = v.strictObject({
+  seamId: id,
+  deviceKid: kid,
+  note: v.optional(v.pipe(v.string(), v.maxLength(500))),
+});
 const decisionInput = v.strictObject({
   seamId: id,
   round: v.pipe(v.number(), v.integer(), v.minValue(1), v.maxValue(999)),
@@ -44,24 +60,29 @@ export function adminRoutes(deps: AppDeps): Hono<AppEnv> {
 
   app.get('/devices', async (c) => c.json(await deps.storage.listDevices()));
 
-  app.post('/enrolment-codes', async (c) => c.json(await issueEnrolmentCode(deps, who(c.get('account'))), 201));
+  app.post('/enrolment-codes', async (c) =>
+    c.json(await issueEnrolmentCode(deps, who(c.get('account'))), 201),
+  );
 
   app.patch('/devices/:kid', async (c) => {
     const { name } = parseInput(renameInput, await readJson(c, max));
-    if (!(await deps.storage.renameDevice(c.req.param('kid'), name))) throw new HttpError(404, 'unknownDevice', 'no such device');
+    if (!(await deps.storage.renameDevice(c.req.param('kid'), name)))
+      throw new HttpError(404, 'unknownDevice', 'no such device');
     return c.json(await deps.storage.getDevice(c.req.param('kid')));
   });
 
   app.post('/devices/:kid/revoke', async (c) => {
     const target = c.req.param('kid');
-    if (!(await deps.storage.revokeDevice(target, deps.now().toISOString()))) throw new HttpError(404, 'unknownDevice', 'no such device');
+    if (!(await deps.storage.revokeDevice(target, deps.now().toISOString())))
+      throw new HttpError(404, 'unknownDevice', 'no such device');
     deps.log.info('revoked', { by: who(c.get('account')).username, kid: target });
     return c.json(await deps.storage.getDevice(target));
   });
 
   app.post('/accounts', async (c) => {
     const input = parseInput(accountInput, await readJson(c, max));
-    if (await deps.storage.findAccount(input.username)) throw new HttpError(409, 'exists', 'an account with this name exists');
+    if (await deps.storage.findAccount(input.username))
+      throw new HttpError(409, 'exists', 'an account with this name exists');
     const account = await deps.storage.createAccount({
       username: input.username,
       role: input.role,
@@ -75,7 +96,8 @@ export function adminRoutes(deps: AppDeps): Hono<AppEnv> {
   app.put('/seams/:id', async (c) => {
     const { seam: input } = parseInput(seamInput, await readJson(c, max));
     const seam = checkSeamSetup(input);
-    if (seam.id !== c.req.param('id')) throw new HttpError(400, 'invalid', 'seam.id: must equal the id in the address');
+    if (seam.id !== c.req.param('id'))
+      throw new HttpError(400, 'invalid', 'seam.id: must equal the id in the address');
     const result = await putSeam(deps, who(c.get('account')), seam, 'live');
     return c.json({ id: seam.id, result }, result === 'created' ? 201 : 200);
   });
@@ -84,8 +106,16 @@ export function adminRoutes(deps: AppDeps): Hono<AppEnv> {
     const ids = await deps.storage.listSeamIds();
     const seams = [];
     for (const seamId of ids) {
-      const [row, grade] = await Promise.all([deps.storage.getSeam(seamId), deps.storage.getServerGrade(seamId)]);
-      seams.push({ id: seamId, namespace: row?.namespace ?? 'live', state: grade?.state ?? null, levelMet: grade?.levelMet ?? null });
+      const [row, grade] = await Promise.all([
+        deps.storage.getSeam(seamId),
+        deps.storage.getServerGrade(seamId),
+      ]);
+      seams.push({
+        id: seamId,
+        namespace: row?.namespace ?? 'live',
+        state: grade?.state ?? null,
+        levelMet: grade?.levelMet ?? null,
+      });
     }
     return c.json(seams);
   });

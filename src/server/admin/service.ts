@@ -1,5 +1,11 @@
 // Supervisor operations shared by the JSON API and the web pages.
-import { canonicalJson, DECISION_OUTCOMES, formatEnrolmentTicket, newEnrolmentCode, randomUuid } from '../../protocol/index.js';
+import {
+  canonicalJson,
+  formatEnrolmentTicket,
+  newEnrolmentCode,
+  randomUuid,
+  type DECISION_OUTCOMES,
+} from '../../protocol/index.js';
 import { parseSeamFile, SEAM_FILE_FORMAT, type Seam } from '../../domain/index.js';
 import { tokenHash } from '../auth/tokens.js';
 import type { AppDeps } from '../deps.js';
@@ -19,9 +25,19 @@ export async function issueEnrolmentCode(deps: AppDeps, by: Account): Promise<Is
   const code = newEnrolmentCode();
   const now = deps.now();
   const expiresAt = new Date(now.getTime() + deps.config.enrolmentCodeMinutes * 60_000).toISOString();
-  await deps.storage.createEnrolmentCode({ codeHash: tokenHash(code), createdBy: by.id, createdAt: now.toISOString(), expiresAt });
+  await deps.storage.createEnrolmentCode({
+    codeHash: tokenHash(code),
+    createdBy: by.id,
+    createdAt: now.toISOString(),
+    expiresAt,
+  });
   deps.log.info('enrolmentCodeIssued', { by: by.username, expiresAt });
-  return { code, ticket: formatEnrolmentTicket({ code, serverKid: deps.serverKey.kid }), expiresAt, serverKid: deps.serverKey.kid };
+  return {
+    code,
+    ticket: formatEnrolmentTicket({ code, serverKid: deps.serverKey.kid }),
+    expiresAt,
+    serverKid: deps.serverKey.kid,
+  };
 }
 
 /** The seam set-up checked with the grading core's rules; a 400 lists every problem. */
@@ -50,7 +66,11 @@ export async function putSeam(
 ): Promise<'created' | 'updated'> {
   const existing = await deps.storage.getSeam(seam.id);
   if (existing && existing.namespace !== namespace) {
-    throw new HttpError(409, 'namespace', `seam "${seam.id}" is a ${existing.namespace} seam; it cannot become ${namespace}`);
+    throw new HttpError(
+      409,
+      'namespace',
+      `seam "${seam.id}" is a ${existing.namespace} seam; it cannot become ${namespace}`,
+    );
   }
   const result = await deps.storage.putSeam(
     { id: seam.id, namespace, setup: canonicalJson(seam), createdAt: deps.now().toISOString() },
@@ -78,7 +98,14 @@ export async function assignSeam(
   const seam = await currentSetup(deps, input.seamId);
   const id = randomUuid();
   const now = deps.now().toISOString();
-  const item = { id, seamId: input.seamId, seam, ...(input.note ? { note: input.note } : {}), assignedBy: by.username, assignedAt: now };
+  const item = {
+    id,
+    seamId: input.seamId,
+    seam,
+    ...(input.note ? { note: input.note } : {}),
+    assignedBy: by.username,
+    assignedAt: now,
+  };
   const change = await deps.storage.addChange({
     kind: 'assignment',
     itemId: id,
@@ -95,7 +122,12 @@ export async function assignSeam(
 export async function decide(
   deps: AppDeps,
   by: Account,
-  input: { seamId: string; round: number; outcome: (typeof DECISION_OUTCOMES)[number]; comment?: string | undefined },
+  input: {
+    seamId: string;
+    round: number;
+    outcome: (typeof DECISION_OUTCOMES)[number];
+    comment?: string | undefined;
+  },
 ): Promise<{ id: string; seq: number }> {
   await currentSetup(deps, input.seamId);
   const id = randomUuid();

@@ -6,7 +6,9 @@ const KEY_LENGTH = 32;
 
 function derive(password: string, salt: Buffer, options: ScryptOptions): Promise<Buffer> {
   return new Promise((resolve, reject) => {
-    scrypt(password.normalize('NFC'), salt, KEY_LENGTH, options, (error, key) => (error ? reject(error) : resolve(key)));
+    scrypt(password.normalize('NFC'), salt, KEY_LENGTH, options, (error, key) =>
+      error ? reject(error) : resolve(key),
+    );
   });
 }
 
@@ -27,7 +29,12 @@ export async function verifyPassword(password: string, stored: string): Promise<
   const N = Number(n);
   const R = Number(r);
   const expected = Buffer.from(hash, 'base64url');
-  const key = await derive(password, Buffer.from(salt, 'base64url'), { N, r: R, p: Number(p), maxmem: memoryFor(N, R) });
+  const key = await derive(password, Buffer.from(salt, 'base64url'), {
+    N,
+    r: R,
+    p: Number(p),
+    maxmem: memoryFor(N, R),
+  });
   return key.length === expected.length && timingSafeEqual(key, expected);
 }
 

@@ -23,7 +23,11 @@ export const newPasswordSchema = v.pipe(
 
 const passwordChange = v.strictObject({ current: v.string(), next: newPasswordSchema });
 
-const view = (a: Account) => ({ username: a.username, role: a.role, mustChangePassword: a.mustChangePassword });
+const view = (a: Account) => ({
+  username: a.username,
+  role: a.role,
+  mustChangePassword: a.mustChangePassword,
+});
 
 /** Sets a new password after checking the current one; ends the account's other sessions. */
 export async function changePassword(

@@ -9,7 +9,8 @@ import type { Account, Role } from '../storage/types.js';
 import { decoyHash, verifyPassword } from './password.js';
 import { newToken, tokenHash } from './tokens.js';
 
-export const cookieName = (secure: boolean): string => (secure ? '__Host-beadbook_session' : 'beadbook_session');
+export const cookieName = (secure: boolean): string =>
+  secure ? '__Host-beadbook_session' : 'beadbook_session';
 
 /** Reads the session cookie, if any, into the request's `account`. Never refuses by itself. */
 export function loadSession(deps: AppDeps): MiddlewareHandler<AppEnv> {
@@ -31,11 +32,20 @@ export function loadSession(deps: AppDeps): MiddlewareHandler<AppEnv> {
 
 /** Checks a name and password; the same work is done whether or not the account exists. */
 export async function checkLogin(deps: AppDeps, username: string, password: string): Promise<Account | null> {
-  const account = username.length <= 80 && password.length <= 1024 ? await deps.storage.findAccount(username) : undefined;
-  const ok = await verifyPassword(password.slice(0, 1024), account?.passwordHash ?? (await decoyHash(deps.config.scryptCost)));
+  const account =
+    username.length <= 80 && password.length <= 1024 ? await deps.storage.findAccount(username) : undefined;
+  const ok = await verifyPassword(
+    password.slice(0, 1024),
+    account?.passwordHash ?? (await decoyHash(deps.config.scryptCost)),
+  );
   if (!account || !ok) return null;
-  const { passwordHash: _hash, ...rest } = account;
-  return rest;
+  return {
+    id: account.id,
+    username: account.username,
+    role: account.role,
+    mustChangePassword: account.mustChangePassword,
+    createdAt: account.createdAt,
+  };
 }
 
 export async function startSession(deps: AppDeps, c: Context, account: Account): Promise<void> {
@@ -67,8 +77,16 @@ export function sameOrigin(): MiddlewareHandler<AppEnv> {
       const origin = c.req.header('origin');
       const site = c.req.header('sec-fetch-site');
       const own = new URL(c.req.url).origin;
-      const fromHere = origin !== undefined ? origin === own : site === undefined || site === 'same-origin' || site === 'none';
-      if (!fromHere) throw new HttpError(403, 'crossOrigin', 'requests that change data must come from this server\'s own pages');
+      const fromHere =
+        origin !== undefined
+          ? origin === own
+          : site === undefined || site === 'same-origin' || site === 'none';
+      if (!fromHere)
+        throw new HttpError(
+          403,
+          'crossOrigin',
+          "requests that change data must come from this server's own pages",
+        );
     }
     await next();
   };
@@ -90,7 +108,11 @@ export function requireRole(role: Role, gate: Gate): MiddlewareHandler<AppEnv> {
     if (account.role !== role) throw new HttpError(403, 'forbidden', `this needs the ${role} role`);
     if (account.mustChangePassword) {
       if (gate === 'page') return c.redirect('/supervisor/password', 303);
-      throw new HttpError(403, 'passwordChangeRequired', 'set a new password first (POST /api/session/password)');
+      throw new HttpError(
+        403,
+        'passwordChangeRequired',
+        'set a new password first (POST /api/session/password)',
+      );
     }
     await next();
     return undefined;

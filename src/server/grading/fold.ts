@@ -19,7 +19,8 @@ export interface FoldedSeam {
   readonly leftOut: LeftOut[];
 }
 
-const bodyOf = <K extends keyof RecordBodies>(r: StoredRecord): RecordBodies[K] => JSON.parse(r.body) as RecordBodies[K];
+const bodyOf = <K extends keyof RecordBodies>(r: StoredRecord): RecordBodies[K] =>
+  JSON.parse(r.body) as RecordBodies[K];
 
 export function foldSeam(material: SeamMaterial): FoldedSeam {
   const leftOut: LeftOut[] = [];
@@ -34,7 +35,11 @@ export function foldSeam(material: SeamMaterial): FoldedSeam {
     switch (r.kind) {
       case 'seamSetup': {
         const body = bodyOf<'seamSetup'>(r);
-        if (!setup || body.revision > setup.revision || (body.revision === setup.revision && r.receiveSeq > setup.receiveSeq)) {
+        if (
+          !setup ||
+          body.revision > setup.revision ||
+          (body.revision === setup.revision && r.receiveSeq > setup.receiveSeq)
+        ) {
           setup = { revision: body.revision, receiveSeq: r.receiveSeq, seam: body.seam };
         }
         break;
@@ -50,10 +55,17 @@ export function foldSeam(material: SeamMaterial): FoldedSeam {
           checklist: {},
         };
         if (!held || r.receiveSeq < held.receiveSeq) {
-          if (held) leftOut.push({ recordId: `round ${body.number} (received #${held.receiveSeq})`, reason: 'round started twice' });
+          if (held)
+            leftOut.push({
+              recordId: `round ${body.number} (received #${held.receiveSeq})`,
+              reason: 'round started twice',
+            });
           rounds.set(body.number, { receiveSeq: r.receiveSeq, round });
         } else {
-          leftOut.push({ recordId: r.id, reason: `round ${body.number} was started twice; the first one received counts` });
+          leftOut.push({
+            recordId: r.id,
+            reason: `round ${body.number} was started twice; the first one received counts`,
+          });
         }
         break;
       }
@@ -76,18 +88,25 @@ export function foldSeam(material: SeamMaterial): FoldedSeam {
     const body = bodyOf<'checklistAnswer'>(winner);
     const round = rounds.get(body.round);
     if (!round) {
-      leftOut.push({ recordId: winner.id, reason: `answers round ${body.round}, which this server has not received` });
+      leftOut.push({
+        recordId: winner.id,
+        reason: `answers round ${body.round}, which this server has not received`,
+      });
       continue;
     }
     round.round = { ...round.round, checklist: { ...round.round.checklist, [body.item]: body.answer } };
   }
 
-  const seam = (setup as { seam: Seam } | null)?.seam ?? (material.seam ? (JSON.parse(material.seam.setup) as Seam) : null);
+  const seam =
+    (setup as { seam: Seam } | null)?.seam ??
+    (material.seam ? (JSON.parse(material.seam.setup) as Seam) : null);
   return {
     basedOn,
     seam,
     rounds: [...rounds.values()].map((r) => r.round).sort((a, b) => a.number - b.number),
-    readings: readings.sort((a, b) => (a.reading.id < b.reading.id ? -1 : a.reading.id > b.reading.id ? 1 : 0)),
+    readings: readings.sort((a, b) =>
+      a.reading.id < b.reading.id ? -1 : a.reading.id > b.reading.id ? 1 : 0,
+    ),
     leftOut,
   };
 }
@@ -100,7 +119,11 @@ function latestAnswer(candidates: readonly StoredRecord[]): StoredRecord {
   const perDevice = new Map<string | null, StoredRecord>();
   for (const c of candidates) {
     const held = perDevice.get(c.deviceKid);
-    if (!held || c.deviceSeq > held.deviceSeq || (c.deviceSeq === held.deviceSeq && c.receiveSeq > held.receiveSeq)) {
+    if (
+      !held ||
+      c.deviceSeq > held.deviceSeq ||
+      (c.deviceSeq === held.deviceSeq && c.receiveSeq > held.receiveSeq)
+    ) {
       perDevice.set(c.deviceKid, c);
     }
   }

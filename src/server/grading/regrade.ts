@@ -29,7 +29,10 @@ export interface GradeSummary {
 const MAX_PASSES = 4;
 const READING_PATH = /^readings\[(\d+)\]/;
 
-export function gradeFolded(material: Parameters<typeof foldSeam>[0]): { basedOn: number; summary: GradeSummary } {
+export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
+  basedOn: number;
+  summary: GradeSummary;
+} {
   const folded = foldSeam(material);
   const empty = {
     levelMet: null,
@@ -49,7 +52,13 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): { basedOn
   let kept = folded.readings;
   let file: SeamFile | null = null;
   for (let pass = 0; pass < MAX_PASSES && !file; pass++) {
-    const parsed = parseSeamFile(seamFileOf(folded, kept.map((r) => r.reading)), { allowNoReadings: true });
+    const parsed = parseSeamFile(
+      seamFileOf(
+        folded,
+        kept.map((r) => r.reading),
+      ),
+      { allowNoReadings: true },
+    );
     if (parsed.ok) {
       file = parsed.value;
       break;
@@ -60,11 +69,19 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): { basedOn
       const m = READING_PATH.exec(p.path);
       if (m) {
         const i = Number(m[1]);
-        bad.set(i, bad.has(i) ? `${bad.get(i)}; ${p.path.replace(READING_PATH, 'reading')}: ${p.message}` : `${p.path.replace(READING_PATH, 'reading')}: ${p.message}`);
+        bad.set(
+          i,
+          bad.has(i)
+            ? `${bad.get(i)}; ${p.path.replace(READING_PATH, 'reading')}: ${p.message}`
+            : `${p.path.replace(READING_PATH, 'reading')}: ${p.message}`,
+        );
       } else seamProblems.push(p);
     }
     if (seamProblems.length) {
-      return { basedOn: folded.basedOn, summary: { ...empty, leftOut, state: 'invalid', problems: seamProblems } };
+      return {
+        basedOn: folded.basedOn,
+        summary: { ...empty, leftOut, state: 'invalid', problems: seamProblems },
+      };
     }
     for (const [i, reason] of bad) {
       const r = kept[i];
@@ -75,7 +92,12 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): { basedOn
   if (!file) {
     return {
       basedOn: folded.basedOn,
-      summary: { ...empty, leftOut, state: 'invalid', problems: [{ path: 'readings', message: 'could not be brought into a gradable set' }] },
+      summary: {
+        ...empty,
+        leftOut,
+        state: 'invalid',
+        problems: [{ path: 'readings', message: 'could not be brought into a gradable set' }],
+      },
     };
   }
   const grade = gradeSeam(file, undefined, { readings: 'columns' });

@@ -26,7 +26,8 @@ const decoder = new TextDecoder('utf-8', { fatal: true });
 
 export async function readText(c: Context, allowed: readonly string[], maxBytes: number): Promise<string> {
   requireMediaType(c, allowed);
-  const tooLarge = () => new HttpError(413, 'tooLarge', `the body is larger than ${maxBytes} bytes, the most this request takes`);
+  const tooLarge = () =>
+    new HttpError(413, 'tooLarge', `the body is larger than ${maxBytes} bytes, the most this request takes`);
   const declared = c.req.header('content-length');
   if (declared !== undefined && (!/^\d+$/.test(declared) || Number(declared) > maxBytes)) {
     if (!/^\d+$/.test(declared)) throw new HttpError(400, 'malformed', 'Content-Length must be a number');

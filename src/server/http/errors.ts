@@ -1,7 +1,7 @@
 // Errors a request can end with. Each carries its status, a stable code and a message for people; nothing else
 // (no stack, no internal detail) leaves the server.
 import type { ContentfulStatusCode } from 'hono/utils/http-status';
-import { ProtocolError } from '../../protocol/index.js';
+import type { ProtocolError } from '../../protocol/index.js';
 
 export class HttpError extends Error {
   override readonly name = 'HttpError';

@@ -25,7 +25,9 @@ export function securityHeaders(tls: boolean): MiddlewareHandler {
     h.set('Content-Security-Policy', CONTENT_SECURITY_POLICY);
     h.set('X-Content-Type-Options', 'nosniff');
     h.set('X-Frame-Options', 'DENY');
-    h.set('Referrer-Policy', 'no-referrer');
+    // same-origin, not no-referrer: under no-referrer a browser sends "Origin: null" with a form post, and the
+    // same-origin check on the supervisor's forms would refuse it.
+    h.set('Referrer-Policy', 'same-origin');
     h.set('Cross-Origin-Opener-Policy', 'same-origin');
     h.set('Cross-Origin-Resource-Policy', 'same-origin');
     // The camera is for the app's tag scanning on this origin only.

@@ -23,7 +23,10 @@ const TYPES: Record<string, string> = {
   '.txt': 'text/plain; charset=utf-8',
 };
 
-async function fileFor(root: string, urlPath: string): Promise<{ file: string; size: number; mtimeMs: number } | undefined> {
+async function fileFor(
+  root: string,
+  urlPath: string,
+): Promise<{ file: string; size: number; mtimeMs: number } | undefined> {
   let path: string;
   try {
     path = decodeURIComponent(urlPath);

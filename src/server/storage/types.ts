@@ -90,7 +90,12 @@ export type PlannedRecord =
       /** Canonical JSON of the whole record as sent, less its transport members (seq, createdAt). */
       readonly record: string;
     }
-  | { readonly index: number; readonly status: 'rejected'; readonly id: string | null; readonly reason: string };
+  | {
+      readonly index: number;
+      readonly status: 'rejected';
+      readonly id: string | null;
+      readonly reason: string;
+    };
 
 export interface BatchPlan {
   readonly batchId: string;
@@ -257,7 +262,9 @@ export interface Storage {
   listRecords(filter: { seamId?: string; deviceKid?: string }): Promise<StoredRecord[]>;
   listParked(): Promise<ParkedRecord[]>;
   /** Records added by the server itself (the demo yard): no device, no batch. */
-  insertServerRecords(records: readonly Omit<StoredRecord, 'receiveSeq' | 'deviceKid' | 'batchId'>[]): Promise<number>;
+  insertServerRecords(
+    records: readonly Omit<StoredRecord, 'receiveSeq' | 'deviceKid' | 'batchId'>[],
+  ): Promise<number>;
 
   // Seams and grades
   putSeam(seam: SeamRow, createdBy: number | null): Promise<'created' | 'updated'>;
@@ -275,7 +282,11 @@ export interface Storage {
    * The device's changes after `afterSeq`, oldest first, at most `limit`; `through` is the last change number
    * the answer covers (the next cursor), whether or not it was for this device.
    */
-  changesFor(kid: string, afterSeq: number, limit: number): Promise<{ changes: ChangeRow[]; through: number; more: boolean }>;
+  changesFor(
+    kid: string,
+    afterSeq: number,
+    limit: number,
+  ): Promise<{ changes: ChangeRow[]; through: number; more: boolean }>;
 
   /** Every row of the record tables in a fixed order, for a canonical dump (tests and audits). */
   dumpRecordTables(): Promise<Record<string, unknown[]>>;

@@ -1,17 +1,17 @@
-// Imported device public keys, kept so each request does not import its key again. Whether a device is enrolled
-// and not revoked is read from storage on every request; only the key import is cached.
-import { importJWK, type CryptoKey } from 'jose';
-import { JWS_ALG } from '../../protocol/index.js';
+// Device public keys as node:crypto key objects, kept so each request does not import its key again. Whether a
+// device is enrolled and not revoked is read from storage on every request; only the key import is cached.
+import type { KeyObject } from 'node:crypto';
+import { publicKeyObject } from './verify.js';
 
 const MAX_KEYS = 2000;
 
 export class DeviceKeyCache {
-  readonly #keys = new Map<string, CryptoKey>();
+  readonly #keys = new Map<string, KeyObject>();
 
-  async get(kid: string, publicJwk: string): Promise<CryptoKey> {
+  get(kid: string, publicJwk: string): KeyObject {
     const cached = this.#keys.get(kid);
     if (cached) return cached;
-    const key = (await importJWK(JSON.parse(publicJwk) as Record<string, unknown>, JWS_ALG)) as CryptoKey;
+    const key = publicKeyObject(publicJwk);
     if (this.#keys.size >= MAX_KEYS) this.#keys.clear();
     this.#keys.set(kid, key);
     return key;

@@ -10,7 +10,6 @@ import {
   parseFlattenedJws,
   PROTOCOL_VERSION,
   readProtectedHeader,
-  verifyJws,
   type BatchReply,
   type Verified,
 } from '../../protocol/index.js';
@@ -19,6 +18,7 @@ import { HttpError } from '../http/errors.js';
 import type { Logger } from '../log.js';
 import type { Device, PlannedRecord, Storage } from '../storage/types.js';
 import type { DeviceKeyCache } from './device-keys.js';
+import { verifyJwsNode } from './verify.js';
 import type { JwsKind } from '../../protocol/index.js';
 
 export interface SyncDeps {
@@ -55,15 +55,29 @@ export async function verifyDeviceRequest(
   }
   if (device.revokedAt !== null) {
     deps.log.warn('security', { what: 'revokedKey', kind, kid: device.kid });
-    await deps.storage.recordSecurityEvent(deps.now().toISOString(), 'revokedKeyUsed', device.kid, JSON.stringify({ kind }));
-    throw new HttpError(403, 'revoked', 'this device was revoked by a supervisor; it must be enrolled again as a new device');
+    await deps.storage.recordSecurityEvent(
+      deps.now().toISOString(),
+      'revokedKeyUsed',
+      device.kid,
+      JSON.stringify({ kind }),
+    );
+    throw new HttpError(
+      403,
+      'revoked',
+      'this device was revoked by a supervisor; it must be enrolled again as a new device',
+    );
   }
-  const key = await deps.deviceKeys.get(device.kid, device.publicJwk);
+  const key = deps.deviceKeys.get(device.kid, device.publicJwk);
   try {
-    return { device, verified: await verifyJws(jws, kind, key) };
+    return { device, verified: verifyJwsNode(jws, kind, key) };
   } catch (error) {
     deps.log.warn('security', { what: 'badSignature', kind, kid: device.kid });
-    await deps.storage.recordSecurityEvent(deps.now().toISOString(), 'badSignature', device.kid, JSON.stringify({ kind }));
+    await deps.storage.recordSecurityEvent(
+      deps.now().toISOString(),
+      'badSignature',
+      device.kid,
+      JSON.stringify({ kind }),
+    );
     throw error;
   }
 }
@@ -78,7 +92,12 @@ export function planRecords(records: readonly unknown[]): PlannedRecord[] {
       case 'valid': {
         const r = verdict.record;
         if (isDemoId(r.seamId)) {
-          return { index, status: 'rejected', id: r.id, reason: 'seamId: demo seams stay on the device and never sync' };
+          return {
+            index,
+            status: 'rejected',
+            id: r.id,
+            reason: 'seamId: demo seams stay on the device and never sync',
+          };
         }
         return {
           index,
@@ -93,7 +112,10 @@ export function planRecords(records: readonly unknown[]): PlannedRecord[] {
         };
       }
       case 'parked': {
-        const { seq: _seq, createdAt: _createdAt, ...content } = verdict.raw;
+        // Transport members (the device's sequence number and clock) are not part of the record's content.
+        const content = Object.fromEntries(
+          Object.entries(verdict.raw).filter(([k]) => k !== 'seq' && k !== 'createdAt'),
+        );
         return {
           index,
           status: 'parked',
@@ -127,7 +149,12 @@ export async function ingestBatch(deps: SyncDeps, bodyText: string): Promise<Bat
     deviceGrades: (payload.deviceGrades ?? []).map((g) => ({ seamId: g.seamId, grade: canonicalJson(g) })),
   });
   if (outcome.kind === 'conflict') {
-    deps.log.warn('security', { what: 'batchConflict', kid: device.kid, batchId: payload.batchId, reason: outcome.reason });
+    deps.log.warn('security', {
+      what: 'batchConflict',
+      kid: device.kid,
+      batchId: payload.batchId,
+      reason: outcome.reason,
+    });
     await deps.storage.recordSecurityEvent(
       receivedAt,
       'batchConflict',
@@ -137,11 +164,21 @@ export async function ingestBatch(deps: SyncDeps, bodyText: string): Promise<Bat
     throw new HttpError(422, 'batchConflict', `${outcome.reason}: nothing of it was applied`);
   }
   for (const id of outcome.conflicts) {
-    deps.log.warn('security', { what: 'recordIdConflict', kid: device.kid, batchId: payload.batchId, recordId: id });
+    deps.log.warn('security', {
+      what: 'recordIdConflict',
+      kid: device.kid,
+      batchId: payload.batchId,
+      recordId: id,
+    });
   }
   if (outcome.seamsChanged.length) deps.regrade(outcome.seamsChanged);
   const counts = { accepted: 0, duplicate: 0, parked: 0, rejected: 0 };
   for (const r of outcome.results) counts[r.status] += 1;
   deps.log.info('batch', { kid: device.kid, batchId: payload.batchId, replay: outcome.replay, ...counts });
-  return { protocol: PROTOCOL_VERSION, batchId: payload.batchId, replay: outcome.replay, results: outcome.results };
+  return {
+    protocol: PROTOCOL_VERSION,
+    batchId: payload.batchId,
+    replay: outcome.replay,
+    results: outcome.results,
+  };
 }

@@ -25,7 +25,13 @@ export async function issueNonce(deps: AppDeps): Promise<{ nonce: string; expire
 
 function itemOf(change: ChangeRow, deviceKid: string): ServerItem {
   const stored = JSON.parse(change.item) as Record<string, unknown>;
-  return { ...stored, protocol: PROTOCOL_VERSION, type: change.kind, seq: change.seq, deviceKid } as ServerItem;
+  return {
+    ...stored,
+    protocol: PROTOCOL_VERSION,
+    type: change.kind,
+    seq: change.seq,
+    deviceKid,
+  } as ServerItem;
 }
 
 export async function pull(deps: AppDeps & SyncDeps, bodyText: string) {
@@ -34,16 +40,26 @@ export async function pull(deps: AppDeps & SyncDeps, bodyText: string) {
   const now = deps.now().toISOString();
   if (!(await deps.storage.consumeNonce(payload.nonce, now))) {
     deps.log.warn('security', { what: 'nonceRefused', kid: device.kid });
-    throw new HttpError(401, 'nonce', 'this nonce is unknown, used or expired: ask for a new one (POST /api/sync/nonce)');
+    throw new HttpError(
+      401,
+      'nonce',
+      'this nonce is unknown, used or expired: ask for a new one (POST /api/sync/nonce)',
+    );
   }
   await deps.storage.touchDevice(device.kid, now, {
     queued: payload.outbox.queued,
     oldestAt: payload.outbox.oldestQueuedAt ?? null,
   });
-  const page = await deps.storage.changesFor(device.kid, seqOfCursor(payload.cursor), payload.limit ?? MAX_PULL_ITEMS);
+  const page = await deps.storage.changesFor(
+    device.kid,
+    seqOfCursor(payload.cursor),
+    payload.limit ?? MAX_PULL_ITEMS,
+  );
   const items = [];
   for (const change of page.changes) {
-    items.push(await signServerItem(itemOf(change, device.kid), deps.serverKey.privateKey, deps.serverKey.kid));
+    items.push(
+      await signServerItem(itemOf(change, device.kid), deps.serverKey.privateKey, deps.serverKey.kid),
+    );
   }
   return { protocol: PROTOCOL_VERSION, cursor: cursorOf(page.through), more: page.more, items };
 }

@@ -23,6 +23,9 @@ export async function loadServerKey(storage: Storage, now: Date): Promise<Server
     });
   }
   const publicJwk = toPublicJwk(JSON.parse(row.publicJwk));
-  const privateKey = (await importJWK(JSON.parse(row.privateJwk) as Record<string, unknown>, JWS_ALG)) as CryptoKey;
+  const privateKey = (await importJWK(
+    JSON.parse(row.privateJwk) as Record<string, unknown>,
+    JWS_ALG,
+  )) as CryptoKey;
   return { kid: row.kid, publicJwk, privateKey };
 }

@@ -6,36 +6,47 @@ import { qrSvg } from './qr.js';
 import type { IssuedCode } from '../admin/service.js';
 
 function layout(title: string, body: Html, signedIn: string | null): string {
-  return `<!doctype html>${html`<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${title} · Beadbook supervisor</title>
-<link rel="stylesheet" href="/supervisor/style.css">
-</head>
-<body>
-<header>
-  <strong>Beadbook supervisor</strong>
-  ${signedIn === null ? '' : html`<a href="/supervisor/devices">Devices</a> <a href="/supervisor/seams">Seams</a>
-  <form method="post" action="/supervisor/logout"><span>${signedIn}</span> <button type="submit">Sign out</button></form>`}
-</header>
-<main>
-${body}
-</main>
-</body>
-</html>`.text}`;
+  return `<!doctype html>${
+    html`<html lang="en">
+      <head>
+        <meta charset="utf-8" />
+        <meta name="viewport" content="width=device-width, initial-scale=1" />
+        <title>${title} · Beadbook supervisor</title>
+        <link rel="stylesheet" href="/supervisor/style.css" />
+      </head>
+      <body>
+        <header>
+          <strong>Beadbook supervisor</strong>
+          ${
+            signedIn === null
+              ? ''
+              : html`<a href="/supervisor/devices">Devices</a> <a href="/supervisor/seams">Seams</a>
+                  <form method="post" action="/supervisor/logout">
+                    <span>${signedIn}</span> <button type="submit">Sign out</button>
+                  </form>`
+          }
+        </header>
+        <main>${body}</main>
+      </body>
+    </html>`.text
+  }`;
 }
 
 export function loginPage(error: string | null): string {
   return layout(
     'Sign in',
     html`<h1>Sign in</h1>
-${error ? html`<p class="error" role="alert">${error}</p>` : ''}
-<form method="post" action="/supervisor/login">
-  <label>Name <input type="text" name="username" autocomplete="username" required maxlength="80"></label>
-  <label>Password <input type="password" name="password" autocomplete="current-password" required maxlength="1024"></label>
-  <button type="submit">Sign in</button>
-</form>`,
+      ${error ? html`<p class="error" role="alert">${error}</p>` : ''}
+      <form method="post" action="/supervisor/login">
+        <label
+          >Name <input type="text" name="username" autocomplete="username" required maxlength="80"
+        /></label>
+        <label
+          >Password
+          <input type="password" name="password" autocomplete="current-password" required maxlength="1024"
+        /></label>
+        <button type="submit">Sign in</button>
+      </form>`,
     null,
   );
 }
@@ -44,58 +55,116 @@ export function passwordPage(user: string, mustChange: boolean, error: string | 
   return layout(
     'Password',
     html`<h1>Set a new password</h1>
-${mustChange ? html`<p>This account has a one-time password. Choose your own before going on.</p>` : ''}
-${error ? html`<p class="error" role="alert">${error}</p>` : ''}
-<form method="post" action="/supervisor/password">
-  <label>Current password <input type="password" name="current" autocomplete="current-password" required></label>
-  <label>New password (at least 10 characters) <input type="password" name="next" autocomplete="new-password" required minlength="10"></label>
-  <button type="submit">Save</button>
-</form>`,
+      ${mustChange ? html`<p>This account has a one-time password. Choose your own before going on.</p>` : ''}
+      ${error ? html`<p class="error" role="alert">${error}</p>` : ''}
+      <form method="post" action="/supervisor/password">
+        <label
+          >Current password <input type="password" name="current" autocomplete="current-password" required
+        /></label>
+        <label
+          >New password (at least 10 characters)
+          <input type="password" name="next" autocomplete="new-password" required minlength="10"
+        /></label>
+        <button type="submit">Save</button>
+      </form>`,
     user,
   );
 }
 
-const when = (iso: string | null): string => (iso === null ? 'never' : iso.replace('T', ' ').replace(/\.\d+Z$/, ' UTC'));
+const when = (iso: string | null): string =>
+  iso === null ? 'never' : iso.replace('T', ' ').replace(/\.\d+Z$/, ' UTC');
 
 function deviceRow(d: Device): Html {
   const revoked = d.revokedAt !== null;
   return html`<tr>
-  <td>${d.name} ${revoked ? html`<span class="badge revoked">revoked ${when(d.revokedAt)}</span>` : ''}<br><span class="kid">${d.kid}</span></td>
-  <td>${when(d.enrolledAt)}</td>
-  <td>${when(d.lastContactAt)}</td>
-  <td>${d.reportedQueue === null ? 'not reported' : html`${d.reportedQueue} waiting${d.reportedOldestAt ? html`<br>oldest made ${when(d.reportedOldestAt)} (device clock)` : ''}<br>reported ${when(d.reportedAt)}`}</td>
-  <td>
-    <form method="post" action="/supervisor/devices/${encodeURIComponent(d.kid)}/name">
-      <input type="text" name="name" value="${d.name}" maxlength="80" aria-label="Name of ${d.name}" required>
-      <button type="submit">Rename</button>
-    </form>
-    ${revoked ? '' : html`<form method="post" action="/supervisor/devices/${encodeURIComponent(d.kid)}/revoke">
-      <label><input type="checkbox" name="confirm" value="yes" required> I want to revoke this device</label>
-      <button type="submit">Revoke</button>
-    </form>`}
-  </td>
-</tr>`;
+    <td>
+      ${d.name} ${revoked ? html`<span class="badge revoked">revoked ${when(d.revokedAt)}</span>` : ''}<br /><span
+        class="kid"
+        >${d.kid}</span
+      >
+    </td>
+    <td>${when(d.enrolledAt)}</td>
+    <td>${when(d.lastContactAt)}</td>
+    <td>
+      ${d.reportedQueue === null ? 'not reported' : html`${d.reportedQueue} waiting${d.reportedOldestAt ? html`<br />oldest made ${when(d.reportedOldestAt)} (device clock)` : ''}<br />reported ${when(d.reportedAt)}`}
+    </td>
+    <td>
+      <form method="post" action="/supervisor/devices/${encodeURIComponent(d.kid)}/name">
+        <input
+          type="text"
+          name="name"
+          value="${d.name}"
+          maxlength="80"
+          aria-label="Name of ${d.name}"
+          required
+        />
+        <button type="submit">Rename</button>
+      </form>
+      ${
+        revoked
+          ? ''
+          : html`<form method="post" action="/supervisor/devices/${encodeURIComponent(d.kid)}/revoke">
+              <label
+                ><input type="checkbox" name="confirm" value="yes" required /> I want to revoke this
+                device</label
+              >
+              <button type="submit">Revoke</button>
+            </form>`
+      }
+    </td>
+  </tr>`;
 }
 
-export function devicesPage(user: string, devices: readonly Device[], code: IssuedCode | null, notice: string | null): string {
+export function devicesPage(
+  user: string,
+  devices: readonly Device[],
+  code: IssuedCode | null,
+  notice: string | null,
+): string {
   return layout(
     'Devices',
     html`<h1>Devices</h1>
-${notice ? html`<p class="notice" role="status">${notice}</p>` : ''}
-<section class="panel">
-  <h2>Enrol a tablet</h2>
-  ${code
-    ? html`<p>On the tablet, open Beadbook and scan this code, or type it in. It works once and expires at ${when(code.expiresAt)}.</p>
-  <p class="code">${code.code}</p>
-  ${qrSvg(code.ticket)}
-  <p>Server key: <span class="kid">${code.serverKid}</span></p>`
-    : html`<p>Show a one-time enrolment code for a new tablet (or for one whose storage was wiped: it enrols as a new device).</p>`}
-  <form method="post" action="/supervisor/devices/code"><button type="submit">${code ? 'New code' : 'Show an enrolment code'}</button></form>
-</section>
-<table>
-  <thead><tr><th>Device</th><th>Enrolled</th><th>Last contact</th><th>Outbox</th><th>Actions</th></tr></thead>
-  <tbody>${devices.length ? devices.map(deviceRow) : html`<tr><td colspan="5">No device is enrolled yet.</td></tr>`}</tbody>
-</table>`,
+      ${notice ? html`<p class="notice" role="status">${notice}</p>` : ''}
+      <section class="panel">
+        <h2>Enrol a tablet</h2>
+        ${
+          code
+            ? html`<p>
+                  On the tablet, open Beadbook and scan this code, or type it in. It works once and expires at
+                  ${when(code.expiresAt)}.
+                </p>
+                <p class="code">${code.code}</p>
+                ${qrSvg(code.ticket)}
+                <p>Server key: <span class="kid">${code.serverKid}</span></p>`
+            : html`<p>
+                Show a one-time enrolment code for a new tablet (or for one whose storage was wiped: it enrols
+                as a new device).
+              </p>`
+        }
+        <form method="post" action="/supervisor/devices/code">
+          <button type="submit">${code ? 'New code' : 'Show an enrolment code'}</button>
+        </form>
+      </section>
+      <table>
+        <thead>
+          <tr>
+            <th>Device</th>
+            <th>Enrolled</th>
+            <th>Last contact</th>
+            <th>Outbox</th>
+            <th>Actions</th>
+          </tr>
+        </thead>
+        <tbody>
+          ${
+            devices.length
+              ? devices.map(deviceRow)
+              : html`<tr>
+                  <td colspan="5">No device is enrolled yet.</td>
+                </tr>`
+          }
+        </tbody>
+      </table>`,
     user,
   );
 }
@@ -113,20 +182,52 @@ export function seamsPage(user: string, seams: readonly SeamLine[]): string {
   return layout(
     'Seams',
     html`<h1>Seams</h1>
-<p>The server grades every seam again from the records it holds; the device's own grade is shown beside it.</p>
-<table>
-  <thead><tr><th>Seam</th><th>Records</th><th>Server's grade</th><th>Devices' grades</th></tr></thead>
-  <tbody>${seams.length
-    ? seams.map(
-        (s) => html`<tr><td>${s.label ?? s.id} ${s.namespace === 'demo' ? html`<span class="badge demo">demo</span>` : ''}<br><span class="kid">${s.id}</span></td>
-  <td>${s.records}</td><td>${s.serverGrade}</td><td>${s.deviceGrades}</td></tr>`,
-      )
-    : html`<tr><td colspan="4">No seam yet.</td></tr>`}</tbody>
-</table>`,
+      <p>
+        The server grades every seam again from the records it holds; the device's own grade is shown beside
+        it.
+      </p>
+      <table>
+        <thead>
+          <tr>
+            <th>Seam</th>
+            <th>Records</th>
+            <th>Server's grade</th>
+            <th>Devices' grades</th>
+          </tr>
+        </thead>
+        <tbody>
+          ${
+            seams.length
+              ? seams.map(
+                  (s) =>
+                    html`<tr>
+                      <td>
+                        ${s.label ?? s.id}
+                        ${s.namespace === 'demo' ? html`<span class="badge demo">demo</span>` : ''}<br /><span
+                          class="kid"
+                          >${s.id}</span
+                        >
+                      </td>
+                      <td>${s.records}</td>
+                      <td>${s.serverGrade}</td>
+                      <td>${s.deviceGrades}</td>
+                    </tr>`,
+                )
+              : html`<tr>
+                  <td colspan="4">No seam yet.</td>
+                </tr>`
+          }
+        </tbody>
+      </table>`,
     user,
   );
 }
 
 export function errorPage(status: number, message: string): string {
-  return layout(`Error ${status}`, html`<h1>${status === 404 ? 'Not found' : 'Something went wrong'}</h1><p>${message}</p>`, null);
+  return layout(
+    `Error ${status}`,
+    html`<h1>${status === 404 ? 'Not found' : 'Something went wrong'}</h1>
+      <p>${message}</p>`,
+    null,
+  );
 }

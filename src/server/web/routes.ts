@@ -38,7 +38,10 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     const form = await readForm(c, max);
     const account = await checkLogin(deps, form.get('username') ?? '', form.get('password') ?? '');
     if (!account) {
-      deps.log.warn('security', { what: 'signInFailed', username: (form.get('username') ?? '').slice(0, 80) });
+      deps.log.warn('security', {
+        what: 'signInFailed',
+        username: (form.get('username') ?? '').slice(0, 80),
+      });
       return page(c, loginPage('The name or password is not right.'), 401);
     }
     await startSession(deps, c, account);
@@ -63,18 +66,29 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     const form = await readForm(c, max);
     const next = form.get('next') ?? '';
     if (next.length < 10 || next.length > 1024) {
-      return page(c, passwordPage(account.username, account.mustChangePassword, 'The new password must be 10 to 1024 characters long.'), 400);
+      return page(
+        c,
+        passwordPage(
+          account.username,
+          account.mustChangePassword,
+          'The new password must be 10 to 1024 characters long.',
+        ),
+        400,
+      );
     }
     try {
       await changePassword(deps, account, c.get('sessionTokenHash'), form.get('current') ?? '', next);
     } catch (error) {
-      if (error instanceof HttpError) return page(c, passwordPage(account.username, account.mustChangePassword, error.message), 400);
+      if (error instanceof HttpError)
+        return page(c, passwordPage(account.username, account.mustChangePassword, error.message), 400);
       throw error;
     }
     return c.redirect('/supervisor/devices', 303);
   });
 
-  app.get('/devices', supervisor, async (c) => page(c, devicesPage(me(c).username, await deps.storage.listDevices(), null, null)));
+  app.get('/devices', supervisor, async (c) =>
+    page(c, devicesPage(me(c).username, await deps.storage.listDevices(), null, null)),
+  );
 
   app.post('/devices/code', supervisor, async (c) => {
     const code = await issueEnrolmentCode(deps, me(c));
@@ -112,7 +126,7 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
         deps.storage.getServerGrade(id),
         deps.storage.listDeviceGrades(id),
       ]);
-      const label = row ? (JSON.parse(row.setup) as { label?: string }).label ?? null : null;
+      const label = row ? ((JSON.parse(row.setup) as { label?: string }).label ?? null) : null;
       lines.push({
         id,
         label,

@@ -378,14 +378,15 @@ export function GaugeEntry(props: {
     setStatus(`${what} Grading…`);
     const fresh = await props.refresh();
     if (!fresh) return;
-    const said = await grade(
+    await grade(
       fresh.file,
       reading.round,
       target ? 'Correction saved' : 'Reading saved',
       reading,
       true,
+      // Said together with the grade, so both reach the screen in one render.
+      (text) => setStatus(`${what} ${text}.`),
     );
-    if (said) setStatus(`${what} ${said}.`);
   };
 
   const undo = async () => {
@@ -443,8 +444,9 @@ export function GaugeEntry(props: {
       plan.kind === 'withdraw' ? 'Last entry withdrawn' : 'Correction undone',
       plan.kind === 'withdraw' ? null : rec,
       true,
+      (text) => setStatus(`${what} ${text}.`),
     );
-    setStatus(said ? `${what} ${said}.` : what);
+    if (said === null) setStatus(what);
   };
 
   const onSubmit = (e: Event) => {

@@ -99,6 +99,8 @@ export function useGrade(store: Store, seamId: string) {
       heading: string,
       reading: Reading | null,
       saveSummary: boolean,
+      /** Called with the words for the screen's status line in the same update that shows the grade. */
+      onSaid?: (said: string) => void,
     ): Promise<string | null> => {
       const mine = ++ticket.current;
       setShown((prev) => ({
@@ -143,7 +145,9 @@ export function useGrade(store: Store, seamId: string) {
           queueSummary(() => void store.setSummary(seamId, next).catch(() => undefined));
         }
         const level = found?.levelMet;
-        return level ? `level met by this reading: ${levelText(level)}; ${soFar.text}` : soFar.text;
+        const said = level ? `level met by this reading: ${levelText(level)}; ${soFar.text}` : soFar.text;
+        onSaid?.(said);
+        return said;
       } catch (e) {
         if (mine === ticket.current) {
           setShown((prev) => ({

@@ -83,12 +83,14 @@ async function loadNewer(prev: SeamData): Promise<SeamData | null> {
   const sorted = [...records].sort(bySeq);
   const added = sorted.map((r) => r.reading);
   for (const r of added) addToContext(prev.context, r);
-  const file = fileOf(record, rounds, added.length ? [...prev.file.readings, ...added] : prev.file.readings);
+  // The same set-up revision keeps the same seam object, so what depends only on the set-up is not worked out again.
+  const kept = record.revision === prev.record.revision ? { ...record, seam: prev.record.seam } : record;
+  const file = fileOf(kept, rounds, added.length ? [...prev.file.readings, ...added] : prev.file.readings);
   prev.context.seam = file.seam;
   prev.context.rounds = file.rounds;
   return {
     store,
-    record,
+    record: kept,
     file,
     entryOrder: file.readings,
     context: prev.context,

@@ -148,7 +148,9 @@ export class SqliteStorage implements Storage {
       accountById: p('SELECT * FROM accounts WHERE id = ?'),
       accountByName: p('SELECT * FROM accounts WHERE username = ?'),
       setPassword: p('UPDATE accounts SET password_hash = ?, must_change_password = ? WHERE id = ?'),
-      insertSession: p('INSERT INTO sessions (token_hash, account_id, created_at, expires_at) VALUES (?, ?, ?, ?)'),
+      insertSession: p(
+        'INSERT INTO sessions (token_hash, account_id, created_at, expires_at) VALUES (?, ?, ?, ?)',
+      ),
       sessionAccount: p(
         `SELECT a.* FROM sessions s JOIN accounts a ON a.id = s.account_id
          WHERE s.token_hash = ? AND s.expires_at > ?`,
@@ -160,9 +162,13 @@ export class SqliteStorage implements Storage {
       insertServerKey: p(
         'INSERT INTO server_keys (kid, private_jwk, public_jwk, created_at) VALUES (?, ?, ?, ?) ON CONFLICT DO NOTHING',
       ),
-      insertCode: p('INSERT INTO enrolment_codes (code_hash, created_by, created_at, expires_at) VALUES (?, ?, ?, ?)'),
+      insertCode: p(
+        'INSERT INTO enrolment_codes (code_hash, created_by, created_at, expires_at) VALUES (?, ?, ?, ?)',
+      ),
       codeByHash: p('SELECT * FROM enrolment_codes WHERE code_hash = ?'),
-      useCode: p('UPDATE enrolment_codes SET used_at = ?, used_by_kid = ? WHERE code_hash = ? AND used_at IS NULL'),
+      useCode: p(
+        'UPDATE enrolment_codes SET used_at = ?, used_by_kid = ? WHERE code_hash = ? AND used_at IS NULL',
+      ),
       deleteOldCodes: p('DELETE FROM enrolment_codes WHERE used_at IS NULL AND expires_at <= ?'),
       device: p('SELECT * FROM devices WHERE kid = ?'),
       devices: p('SELECT * FROM devices ORDER BY enrolled_at, kid'),
@@ -191,25 +197,34 @@ export class SqliteStorage implements Storage {
       ),
       recordContent: p('SELECT kind, schema_version, seam_id, body FROM records WHERE id = ?'),
       parkedExists: p('SELECT 1 FROM parked_records WHERE id = ?'),
+      anyParked: p('SELECT 1 FROM parked_records LIMIT 1'),
       recordExists: p('SELECT 1 FROM records WHERE id = ?'),
       insertParked: p(
         `INSERT INTO parked_records (id, kind, schema_version, seam_id, device_kid, batch_id, record, received_at)
          VALUES (?, ?, ?, ?, ?, ?, ?, ?) ON CONFLICT (id) DO NOTHING`,
       ),
       parkedContent: p('SELECT record FROM parked_records WHERE id = ?'),
-      insertRejection: p('INSERT INTO rejections (batch_id, record_index, record_id, reason) VALUES (?, ?, ?, ?)'),
-      linkDeviceSeam: p('INSERT INTO device_seams (device_kid, seam_id) VALUES (?, ?) ON CONFLICT DO NOTHING'),
+      insertRejection: p(
+        'INSERT INTO rejections (batch_id, record_index, record_id, reason) VALUES (?, ?, ?, ?)',
+      ),
+      linkDeviceSeam: p(
+        'INSERT INTO device_seams (device_kid, seam_id) VALUES (?, ?) ON CONFLICT DO NOTHING',
+      ),
       upsertDeviceGrade: p(
         `INSERT INTO device_grades (seam_id, device_kid, batch_seq, grade) VALUES (?, ?, ?, ?)
          ON CONFLICT (seam_id, device_kid) DO UPDATE SET batch_seq = excluded.batch_seq, grade = excluded.grade
          WHERE excluded.batch_seq > device_grades.batch_seq`,
       ),
-      insertSecurityEvent: p('INSERT INTO security_events (at, kind, device_kid, detail) VALUES (?, ?, ?, ?)'),
+      insertSecurityEvent: p(
+        'INSERT INTO security_events (at, kind, device_kid, detail) VALUES (?, ?, ?, ?)',
+      ),
       securityEvents: p('SELECT * FROM security_events ORDER BY id DESC LIMIT ?'),
       recordsAll: p('SELECT * FROM records ORDER BY receive_seq'),
       recordsOfSeam: p('SELECT * FROM records WHERE seam_id = ? ORDER BY receive_seq'),
       recordsOfDevice: p('SELECT * FROM records WHERE device_kid = ? ORDER BY receive_seq'),
-      recordsOfSeamAndDevice: p('SELECT * FROM records WHERE seam_id = ? AND device_kid = ? ORDER BY receive_seq'),
+      recordsOfSeamAndDevice: p(
+        'SELECT * FROM records WHERE seam_id = ? AND device_kid = ? ORDER BY receive_seq',
+      ),
       parked: p('SELECT * FROM parked_records ORDER BY id'),
       insertServerRecord: p(
         `INSERT INTO records (id, kind, schema_version, seam_id, device_kid, batch_id, device_seq, body,
@@ -217,9 +232,7 @@ export class SqliteStorage implements Storage {
          VALUES (?, ?, ?, ?, NULL, NULL, ?, ?, ?, ?) ON CONFLICT (id) DO NOTHING`,
       ),
       seam: p('SELECT id, namespace, setup, created_at FROM seams WHERE id = ?'),
-      seamIds: p(
-        'SELECT id FROM seams UNION SELECT DISTINCT seam_id FROM records ORDER BY 1',
-      ),
+      seamIds: p('SELECT id FROM seams UNION SELECT DISTINCT seam_id FROM records ORDER BY 1'),
       insertSeam: p(
         `INSERT INTO seams (id, namespace, setup, created_at, created_by) VALUES (?, ?, ?, ?, ?)
          ON CONFLICT (id) DO UPDATE SET setup = excluded.setup`,
@@ -246,7 +259,7 @@ export class SqliteStorage implements Storage {
            OR (device_kid IS NULL AND seam_id IN (SELECT seam_id FROM device_seams WHERE device_kid = @kid)))
          ORDER BY seq LIMIT @limit`,
       ),
-      lastChange: p("SELECT coalesce(max(seq), 0) AS seq FROM changes"),
+      lastChange: p('SELECT coalesce(max(seq), 0) AS seq FROM changes'),
     };
   }
 
@@ -288,7 +301,12 @@ export class SqliteStorage implements Storage {
     this.#s.setPassword.run(passwordHash, mustChangePassword ? 1 : 0, accountId);
   }
 
-  async createSession(tokenHash: string, accountId: number, createdAt: string, expiresAt: string): Promise<void> {
+  async createSession(
+    tokenHash: string,
+    accountId: number,
+    createdAt: string,
+    expiresAt: string,
+  ): Promise<void> {
     this.#db
       .transaction(() => {
         this.#s.deleteExpiredSessions.run(createdAt);
@@ -312,15 +330,22 @@ export class SqliteStorage implements Storage {
 
   async getServerKey(): Promise<ServerKeyRow | undefined> {
     const row = this.#s.serverKey.get() as
-      | { kid: string; private_jwk: string; public_jwk: string; created_at: string }
-      | undefined;
-    return row && { kid: row.kid, privateJwk: row.private_jwk, publicJwk: row.public_jwk, createdAt: row.created_at };
+      { kid: string; private_jwk: string; public_jwk: string; created_at: string } | undefined;
+    return (
+      row && {
+        kid: row.kid,
+        privateJwk: row.private_jwk,
+        publicJwk: row.public_jwk,
+        createdAt: row.created_at,
+      }
+    );
   }
 
   async saveServerKey(key: ServerKeyRow): Promise<ServerKeyRow> {
     this.#db
       .transaction(() => {
-        if (!this.#s.serverKey.get()) this.#s.insertServerKey.run(key.kid, key.privateJwk, key.publicJwk, key.createdAt);
+        if (!this.#s.serverKey.get())
+          this.#s.insertServerKey.run(key.kid, key.privateJwk, key.publicJwk, key.createdAt);
       })
       .immediate();
     return (await this.getServerKey()) as ServerKeyRow;
@@ -339,8 +364,7 @@ export class SqliteStorage implements Storage {
     return this.#db
       .transaction((): EnrolOutcome => {
         const code = this.#s.codeByHash.get(a.codeHash) as
-          | { expires_at: string; used_at: string | null; used_by_kid: string | null }
-          | undefined;
+          { expires_at: string; used_at: string | null; used_by_kid: string | null } | undefined;
         const existing = this.#s.device.get(a.kid) as DeviceRow | undefined;
         if (!code) return { kind: 'codeUnknown' };
         if (code.used_at !== null) {
@@ -377,7 +401,11 @@ export class SqliteStorage implements Storage {
     return this.#s.revokeDevice.run(at, kid).changes === 1;
   }
 
-  async touchDevice(kid: string, at: string, report?: { queued: number; oldestAt: string | null }): Promise<void> {
+  async touchDevice(
+    kid: string,
+    at: string,
+    report?: { queued: number; oldestAt: string | null },
+  ): Promise<void> {
     if (report) this.#s.reportQueue.run(at, report.queued, report.oldestAt, at, kid);
     else this.#s.touchDevice.run(at, kid);
   }
@@ -438,11 +466,13 @@ export class SqliteStorage implements Storage {
       );
       return { index: r.index, id: r.id, status: 'rejected', reason: why };
     };
+    // Parked records are rare: look each id up among them only when there are any.
+    const parkedHeld = s.anyParked.get() !== undefined;
     for (const r of plan.records) {
       let result: RecordResult;
       if (r.status === 'valid') {
         seamsSeen.add(r.seamId);
-        if (s.parkedExists.get(r.id)) {
+        if (parkedHeld && s.parkedExists.get(r.id)) {
           result = conflict(r, `record id "${r.id}" is already held as a record of a newer schema`);
         } else {
           const info = s.insertRecord.run(
@@ -462,8 +492,7 @@ export class SqliteStorage implements Storage {
             result = { index: r.index, id: r.id, status: 'accepted' };
           } else {
             const held = s.recordContent.get(r.id) as
-              | { kind: string; schema_version: number; seam_id: string; body: string }
-              | undefined;
+              { kind: string; schema_version: number; seam_id: string; body: string } | undefined;
             const same =
               held?.kind === r.kind &&
               held.schema_version === r.schemaVersion &&
@@ -471,7 +500,10 @@ export class SqliteStorage implements Storage {
               held.body === r.body;
             result = same
               ? { index: r.index, id: r.id, status: 'duplicate' }
-              : conflict(r, `record id "${r.id}" is already stored with other content; records are never overwritten`);
+              : conflict(
+                  r,
+                  `record id "${r.id}" is already stored with other content; records are never overwritten`,
+                );
           }
         }
       } else if (r.status === 'parked') {
@@ -504,7 +536,8 @@ export class SqliteStorage implements Storage {
       results.push(result);
     }
     for (const seamId of seamsSeen) s.linkDeviceSeam.run(plan.deviceKid, seamId);
-    for (const g of plan.deviceGrades) s.upsertDeviceGrade.run(g.seamId, plan.deviceKid, plan.deviceSeq, g.grade);
+    for (const g of plan.deviceGrades)
+      s.upsertDeviceGrade.run(g.seamId, plan.deviceKid, plan.deviceSeq, g.grade);
     s.touchDevice.run(plan.receivedAt, plan.deviceKid);
     return { kind: 'applied', replay, results, seamsChanged: [...seamsChanged], conflicts };
   }
@@ -534,7 +567,12 @@ export class SqliteStorage implements Storage {
     );
   }
 
-  async recordSecurityEvent(at: string, kind: string, deviceKid: string | null, detail: string): Promise<void> {
+  async recordSecurityEvent(
+    at: string,
+    kind: string,
+    deviceKid: string | null,
+    detail: string,
+  ): Promise<void> {
     this.#s.insertSecurityEvent.run(at, kind, deviceKid, detail);
   }
 
@@ -622,8 +660,7 @@ export class SqliteStorage implements Storage {
 
   async getSeam(id: string): Promise<SeamRow | undefined> {
     const row = this.#s.seam.get(id) as
-      | { id: string; namespace: SeamRow['namespace']; setup: string; created_at: string }
-      | undefined;
+      { id: string; namespace: SeamRow['namespace']; setup: string; created_at: string } | undefined;
     return row && { id: row.id, namespace: row.namespace, setup: row.setup, createdAt: row.created_at };
   }
 
@@ -640,8 +677,7 @@ export class SqliteStorage implements Storage {
 
   #seamSync(id: string): SeamRow | undefined {
     const row = this.#s.seam.get(id) as
-      | { id: string; namespace: SeamRow['namespace']; setup: string; created_at: string }
-      | undefined;
+      { id: string; namespace: SeamRow['namespace']; setup: string; created_at: string } | undefined;
     return row && { id: row.id, namespace: row.namespace, setup: row.setup, createdAt: row.created_at };
   }
 
@@ -684,14 +720,27 @@ export class SqliteStorage implements Storage {
 
   async listDeviceGrades(seamId: string): Promise<DeviceGradeRow[]> {
     return (
-      this.#s.deviceGrades.all(seamId) as { seam_id: string; device_kid: string; batch_seq: number; grade: string }[]
+      this.#s.deviceGrades.all(seamId) as {
+        seam_id: string;
+        device_kid: string;
+        batch_seq: number;
+        grade: string;
+      }[]
     ).map((r) => ({ seamId: r.seam_id, deviceKid: r.device_kid, batchSeq: r.batch_seq, grade: r.grade }));
   }
 
   async addChange(c: NewChange): Promise<ChangeRow> {
     return this.#db
       .transaction(() => {
-        const info = this.#s.insertChange.run(c.kind, c.itemId, c.seamId, c.deviceKid, c.item, c.createdAt, c.createdBy);
+        const info = this.#s.insertChange.run(
+          c.kind,
+          c.itemId,
+          c.seamId,
+          c.deviceKid,
+          c.item,
+          c.createdAt,
+          c.createdBy,
+        );
         // An assignment makes the device one that works on the seam: it receives the seam's decisions too.
         if (c.deviceKid !== null) this.#s.linkDeviceSeam.run(c.deviceKid, c.seamId);
         return toChange(this.#s.changeBySeq.get(info.lastInsertRowid) as ChangeDbRow);
@@ -705,7 +754,9 @@ export class SqliteStorage implements Storage {
     limit: number,
   ): Promise<{ changes: ChangeRow[]; through: number; more: boolean }> {
     return this.#db.transaction(() => {
-      const rows = (this.#s.changesFor.all({ after: afterSeq, kid, limit: limit + 1 }) as ChangeDbRow[]).map(toChange);
+      const rows = (this.#s.changesFor.all({ after: afterSeq, kid, limit: limit + 1 }) as ChangeDbRow[]).map(
+        toChange,
+      );
       const more = rows.length > limit;
       const changes = more ? rows.slice(0, limit) : rows;
       const last = (this.#s.lastChange.get() as { seq: number }).seq;
