@@ -53,6 +53,9 @@ export async function createApp(options: AppOptions): Promise<BeadbookApp> {
     secure: config.tls !== null,
   };
 
+  // Records stored before a stop whose re-grade had not run yet: grade them now.
+  deps.regrader.schedule(await storage.staleSeams());
+
   const app = new Hono<AppEnv>();
   // Request ids only tie a client's error message to the log lines: unique per process run is enough.
   const runId = newToken(3);

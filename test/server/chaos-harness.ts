@@ -6,7 +6,7 @@ import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { expect } from 'vitest';
-import { canonicalJson, type SealedBatch } from '../../src/protocol/index.js';
+import { canonicalJson, parseBatchReply, type SealedBatch } from '../../src/protocol/index.js';
 import { bodies, testSeam, toeReading } from './records.js';
 import type { Sent } from './sim-device.js';
 import { TestClock, testServer, type TestServer } from './support.js';
@@ -146,7 +146,6 @@ async function run(
   const sendOne = async (batch: SealedBatch): Promise<void> => {
     const sent = await net.deliver(() => device.post(server.current, '/api/sync/batches', batch.body));
     if (sent?.status === 200) {
-      const { parseBatchReply } = await import('../../src/protocol/index.js');
       device.applyReply(batch, parseBatchReply(sent.body));
     } else if (sent && ![502, 503].includes(sent.status)) {
       throw new Error(`seed ${seed}: unexpected answer ${sent.status} ${JSON.stringify(sent.body)}`);

@@ -10,13 +10,14 @@ import { CONTENT_SECURITY_POLICY } from '../../src/server/http/security-headers.
 import { jsonOf, ORIGIN, testServer } from './support.js';
 
 function fakeBuild(): string {
-  const dir = mkdtempSync(join(tmpdir(), 'beadbook-app-'));
-  mkdirSync(join(dir, 'assets'));
+  const parent = mkdtempSync(join(tmpdir(), 'beadbook-app-'));
+  const dir = join(parent, 'app');
+  mkdirSync(join(dir, 'assets'), { recursive: true });
   writeFileSync(join(dir, 'index.html'), '<!doctype html><title>Beadbook</title><div id="app"></div>');
   writeFileSync(join(dir, 'sw.js'), 'self.addEventListener("fetch", () => {});');
   writeFileSync(join(dir, 'assets', 'index-abc123.js'), 'console.log(1)');
   writeFileSync(join(dir, 'manifest.webmanifest'), '{}');
-  writeFileSync(join(dir, '..', 'secret.txt'), 'outside the app');
+  writeFileSync(join(parent, 'secret.txt'), 'outside the app');
   return dir;
 }
 

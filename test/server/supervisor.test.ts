@@ -5,6 +5,7 @@ import { ensureSupervisor } from '../../src/server/bootstrap.js';
 import { testConfig } from '../../src/server/config.js';
 import { memoryLogger } from '../../src/server/log.js';
 import { SqliteStorage } from '../../src/server/storage/sqlite/sqlite-storage.js';
+import { SimDevice } from './sim-device.js';
 import { jsonOf, ORIGIN, SUPERVISOR, testServer, type TestServer } from './support.js';
 
 const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
@@ -234,7 +235,6 @@ describe('Devices page', () => {
     expect(code).toBeDefined();
     expect(page).toMatch(/<svg role="img" aria-label="Enrolment QR code"/);
     expect(page).toContain('expires at');
-    const { SimDevice } = await import('./sim-device.js');
     const device = await SimDevice.create();
     expect((await device.enrol(server, code ?? '', 'Bay 3 tablet')).status).toBe(201);
     const listed = await (await server.request('/supervisor/devices', { headers: { cookie } })).text();

@@ -1,11 +1,14 @@
 // Applying signed batches: per-record answers, idempotence (F5, F9), order independence (F6), partial failure
 // (F2), server failures (F10), newer schemas (F14), device clocks (F17), replay identity and batch-id reuse.
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { uuidv7 } from '../../src/store/ids.js';
 import { allNoneFound, bodies, testSeam, toeReading } from './records.js';
 import { SimDevice } from './sim-device.js';
 import { jsonOf, recordCounts, recordTablesHash, testServer, type TestServer } from './support.js';
-import type { BatchReply } from '../../src/protocol/index.js';
+import { canonicalJson, jwsBody, sealBatch, signJws, type BatchReply } from '../../src/protocol/index.js';
 
 /** A seam with its set-up, first round, a complete checklist and `n` toe-angle readings, queued on the device. */
 function queueSeam(device: SimDevice, n: number, seamId = uuidv7()) {
@@ -286,14 +289,12 @@ describe('F14: records of a newer schema', () => {
       body: { seamId: seam.id, reading: { shape: 'unknown to v1' } },
     };
     const entries = [...device.unsealed()];
-    const { sealBatch } = await import('../../src/protocol/index.js');
     const raw = await sealBatch({ deviceSeq: 1, entries }, device.key.privateKey, device.kid);
     // Built by hand: a newer device would put the newer records in the same batch.
     const payload = JSON.parse(Buffer.from(raw.jws.payload, 'base64url').toString('utf8')) as {
       records: unknown[];
     };
     payload.records.push(newer, newerReading);
-    const { signJws, jwsBody, canonicalJson } = await import('../../src/protocol/index.js');
     const body = jwsBody(await signJws(canonicalJson(payload), 'batch', device.key.privateKey, device.kid));
     const sent = await device.post(server, '/api/sync/batches', body);
     expect(sent.status).toBe(200);
@@ -399,7 +400,6 @@ describe('the same batch id with another payload', () => {
     const before = await recordTablesHash(server.storage);
     const extra = toeReading(uuidv7(), 150);
     device.add('reading', extra.id, bodies.reading(extra));
-    const { sealBatch } = await import('../../src/protocol/index.js');
     const forged = await sealBatch(
       { batchId: batch.batchId, deviceSeq: 9, entries: [device.made.get(extra.id) as never] },
       device.key.privateKey,
@@ -428,7 +428,6 @@ describe('the same batch id with another payload', () => {
     await a.post(server, '/api/sync/batches', batch.body);
     const r = toeReading(uuidv7(), 150);
     b.add('reading', r.id, bodies.reading(r));
-    const { sealBatch } = await import('../../src/protocol/index.js');
     const copy = await sealBatch(
       { batchId: batch.batchId, deviceSeq: 1, entries: b.unsealed() },
       b.key.privateKey,
@@ -519,5 +518,25 @@ describe("the server's grade beside the device's", () => {
     expect(view.deviceGrades).toEqual([
       expect.objectContaining({ deviceKid: device.kid, grade: expect.objectContaining({ levelMet: 'B' }) }),
     ]);
+  });
+});
+
+describe('a re-grade lost to a restart', () => {
+  it('is made up for when the server starts again', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'beadbook-regrade-'));
+    const dbFile = `${dir}/yard.sqlite`;
+    const first = await testServer({ dbFile, keepOpen: true });
+    const device = await first.enrolDevice();
+    const { seam } = queueSeam(device, 3);
+    // Stop the re-grade from running, as a crash right after the commit would.
+    (first.deps.regrader as unknown as { schedule: (ids: string[]) => void }).schedule = () => {};
+    expect(statuses(await device.send(first, await device.seal())).every((s) => s === 'accepted')).toBe(true);
+    expect(await first.storage.getServerGrade(seam.id)).toBeUndefined();
+    expect(await first.storage.staleSeams()).toEqual([seam.id]);
+    await first.close();
+    const second = await testServer({ dbFile });
+    await second.settle();
+    expect((await second.storage.getServerGrade(seam.id))?.state).toBe('graded');
+    expect(await second.storage.staleSeams()).toEqual([]);
   });
 });

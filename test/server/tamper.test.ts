@@ -8,6 +8,7 @@ import {
   signJws,
   type SealedBatch,
 } from '../../src/protocol/index.js';
+import { testConfig } from '../../src/server/config.js';
 import { uuidv7 } from '../../src/store/ids.js';
 import { bodies, testSeam, toeReading } from './records.js';
 import { SimDevice } from './sim-device.js';
@@ -32,7 +33,7 @@ let before: string;
 beforeEach(async () => {
   server = await testServer({
     config: {
-      limits: { ...(await import('../../src/server/config.js')).testConfig().limits, batchBytes: 64 * 1024 },
+      limits: { ...testConfig().limits, batchBytes: 64 * 1024 },
     },
   });
   device = await server.enrolDevice('tablet A');

@@ -96,9 +96,19 @@ export function misalignmentInputs(setup: Setup, readings: readonly Reading[]): 
 
 type SideKey = 'reinforcementHeight' | 'convexity' | 'throat';
 
+/** A side value paired with a toe reading: where it came from is told in words only when asked (basisOf). */
 export interface SideValue {
   readonly value: number;
-  readonly basis: string;
+  readonly from: Reading | null;
+  readonly how: 'same reading' | 'same position' | 'largest';
+  readonly side: string;
+}
+
+export function sideBasis(v: SideValue): string {
+  if (v.how === 'same reading' || !v.from) return 'same reading';
+  return v.how === 'same position'
+    ? `reading ${v.from.id} at the same position`
+    : `largest on the ${v.side === 'any' ? 'seam' : `${v.side} side`} (reading ${v.from.id})`;
 }
 
 interface SideEntry {
@@ -106,12 +116,10 @@ interface SideEntry {
   largest: SideValue | undefined;
 }
 
-const SAME_READING = 'same reading';
-
 /**
  * Values measured on one side of the weld, to pair with a toe reading that lacks them: the same reading first,
  * then a reading on that side at the same position, then the side's largest (conservative for Kt). The answers
- * are made once per side reading, so pairing many toe readings allocates nothing.
+ * are made once per side reading, so pairing many toe readings allocates next to nothing.
  */
 export class SideValues {
   private readonly index = new Map<string, SideEntry>();
@@ -130,17 +138,15 @@ export class SideValues {
           this.index.set(id, entry);
         }
         const pos = positionOf(x);
-        if (!entry.atPosition.has(pos)) entry.atPosition.set(pos, { value: v, basis: `reading ${x.id} at the same position` });
-        if (!entry.largest || v > entry.largest.value) {
-          entry.largest = { value: v, basis: `largest on the ${key === 'throat' ? 'seam' : `${side} side`} (reading ${x.id})` };
-        }
+        if (!entry.atPosition.has(pos)) entry.atPosition.set(pos, { value: v, from: x, how: 'same position', side });
+        if (!entry.largest || v > entry.largest.value) entry.largest = { value: v, from: x, how: 'largest', side };
       }
     }
   }
 
   get(r: Reading, side: 'face' | 'root', key: SideKey): SideValue | undefined {
     const own = r.values[key];
-    if (own !== undefined) return { value: own, basis: SAME_READING };
+    if (own !== undefined) return { value: own, from: r, how: 'same reading', side };
     const entry = this.index.get(key === 'throat' ? 'throat|any' : `${key}|${side}`);
     if (!entry) return undefined;
     return entry.atPosition.get(positionOf(r)) ?? entry.largest;

@@ -10,7 +10,7 @@ import {
 } from '../notch/toe-factors.js';
 import type { ToeGeometry } from '../notch/types.js';
 import { surfaceIndex, toeSurface, type BendingState } from './bending.js';
-import { positionOf, SideValues } from './readings.js';
+import { positionOf, sideBasis, SideValues, type SideValue } from './readings.js';
 import type { Setup } from './setup.js';
 import type { EffectiveValue, ToeAssessment, ToeRanking, ToeRef } from './types.js';
 
@@ -70,44 +70,35 @@ export const toeScore = (setup: Setup, g: ToeGeometry, b: number): number => eff
 const REFERENCE_BASIS_THICK = `not measured at this toe: the reference radius ${referenceRadius(5)} mm`;
 const REFERENCE_BASIS_THIN = `not measured at this toe: the reference radius ${referenceRadius(1)} mm`;
 
-function geometryOf(
+type MutableGeometry = { -readonly [K in keyof ToeGeometry]: ToeGeometry[K] };
+
+/** Fills `g` with a toe reading's geometry (completing it from side readings) and returns the side value used. */
+function fillGeometry(
+  g: MutableGeometry,
   setup: Setup,
   toe: ToeRef,
   r: Reading,
   smallestRadius: number | undefined,
   sides: SideValues,
-): { g: ToeGeometry; radiusBasis: string; hBasis: string | null } {
+): SideValue | undefined {
   const t = setup.family === 'butt' ? (toe.plate === 1 ? setup.t1 : setup.t2) : setup.t1;
-  const own = r.values.toeRadius;
-  const rho = own ?? smallestRadius ?? referenceRadius(t);
-  const radiusBasis =
-    own !== undefined
-      ? 'measured'
-      : smallestRadius !== undefined
-        ? 'not measured here: the smallest radius measured at this toe'
-        : t >= 5
-          ? REFERENCE_BASIS_THICK
-          : REFERENCE_BASIS_THIN;
-  const g: { -readonly [K in keyof ToeGeometry]: ToeGeometry[K] } = {
-    t,
-    flankDeg: 180 - (r.values.toeAngle as number),
-    rho,
-  };
-  let hBasis: string | null = null;
+  g.t = t;
+  g.flankDeg = 180 - (r.values.toeAngle as number);
+  g.rho = r.values.toeRadius ?? smallestRadius ?? referenceRadius(t);
   if (setup.family === 'butt') {
     const h = sides.get(r, toe.side, 'reinforcementHeight');
-    if (h) {
-      g.h = h.value;
-      hBasis = h.basis;
-    }
-  } else {
-    const a = sides.get(r, toe.side, 'throat');
-    const a0 = a?.value ?? setup.seam.nominalThroat;
-    if (a0 !== undefined) g.a = a0;
-    const c = sides.get(r, toe.side, 'convexity');
-    if (c) g.convexity = c.value;
+    g.h = h?.value;
+    return h;
   }
-  return { g, radiusBasis, hBasis };
+  g.a = sides.get(r, toe.side, 'throat')?.value ?? setup.seam.nominalThroat;
+  g.convexity = sides.get(r, toe.side, 'convexity')?.value;
+  return undefined;
+}
+
+function radiusBasisOf(r: Reading, smallestRadius: number | undefined, t: number): string {
+  if (r.values.toeRadius !== undefined) return 'measured';
+  if (smallestRadius !== undefined) return 'not measured here: the smallest radius measured at this toe';
+  return t >= 5 ? REFERENCE_BASIS_THICK : REFERENCE_BASIS_THIN;
 }
 
 /** Per toe: the reading that gives it the highest effective factor, with that factor. */
@@ -116,7 +107,6 @@ export function pickToes(
   readings: readonly Reading[],
   bending: BendingState,
 ): { picks: ToePick[]; notRanked: ToeRanking['notRanked'] } {
-  const sides = new SideValues(readings);
   const picks: ToePick[] = [];
   const notRanked: { toe: ToeRef | null; reason: string }[] = [];
   if (setup.joint === 'lap') {
@@ -125,41 +115,55 @@ export function pickToes(
     }
     return { picks, notRanked };
   }
-  for (const toe of TOES) {
-    const list = readings.filter(
-      (r) => r.toe?.plate === toe.plate && r.toe.side === toe.side && r.values.toeAngle !== undefined,
-    );
-    if (!list.length) continue;
+  // The toe readings, by toe (index into TOES), in one pass.
+  const byToe: Reading[][] = [[], [], [], []];
+  for (const r of readings) {
+    if (!r.toe || r.values.toeAngle === undefined) continue;
+    (byToe[(r.toe.plate - 1) + (r.toe.side === 'root' ? 2 : 0)] as Reading[]).push(r);
+  }
+  const sides = new SideValues(readings);
+  TOES.forEach((toe, k) => {
+    const list = byToe[k] as Reading[];
+    if (!list.length) return;
     const surface = toeSurface(setup.joint, toe);
     if (!surface) {
       notRanked.push({
         toe,
         reason: 'a toe on the attachment: the fatigue loads are taken on the main plate (plate 1)',
       });
-      continue;
+      return;
     }
     const si = surfaceIndex(setup.joint, surface);
     const b = bending.b[si] ?? 0;
     let smallest: number | undefined;
-    for (const r of list)
-      if (r.values.toeRadius !== undefined) smallest = Math.min(smallest ?? Infinity, r.values.toeRadius);
-    let best: { pick: ToePick; score: number } | null = null;
     for (const r of list) {
-      const { g, radiusBasis, hBasis } = geometryOf(setup, toe, r, smallest, sides);
-      const score = toeScore(setup, g, b);
-      if (
-        !best ||
-        score > best.score ||
-        (score === best.score && positionOf(r) < positionOf(best.pick.reading))
-      ) {
-        best = {
-          pick: { toe, surface: si, reading: r, geometry: g, radiusBasis, hBasis, count: list.length },
-          score,
-        };
+      if (r.values.toeRadius !== undefined) smallest = Math.min(smallest ?? Infinity, r.values.toeRadius);
+    }
+    // One scratch geometry for scoring every reading; the winner's is rebuilt as its own object.
+    const scratch: MutableGeometry = { t: 0, flankDeg: 0, rho: 1, h: undefined, a: undefined, convexity: undefined };
+    let best: Reading | undefined;
+    let bestScore = -Infinity;
+    for (const r of list) {
+      fillGeometry(scratch, setup, toe, r, smallest, sides);
+      const score = toeScore(setup, scratch, b);
+      if (!best || score > bestScore || (score === bestScore && positionOf(r) < positionOf(best))) {
+        best = r;
+        bestScore = score;
       }
     }
-    if (best) picks.push(best.pick);
-  }
+    if (!best) return;
+    const g: MutableGeometry = { t: 0, flankDeg: 0, rho: 1, h: undefined, a: undefined, convexity: undefined };
+    const h = fillGeometry(g, setup, toe, best, smallest, sides);
+    picks.push({
+      toe,
+      surface: si,
+      reading: best,
+      geometry: g,
+      radiusBasis: radiusBasisOf(best, smallest, g.t),
+      hBasis: h ? sideBasis(h) : null,
+      count: list.length,
+    });
+  });
   return { picks, notRanked };
 }
 

@@ -148,6 +148,9 @@ function bendingValue(joint: NotchJoint, g: ToeGeometry, which: 0 | 1, out: { in
   return g.flankDeg <= peak ? raw : Math.max(raw, kiyakButtBending(peak, g.h, g.t, g.rho));
 }
 
+/** Reused by effectiveMaxOf (single-threaded, not re-entrant): saves an object per call. */
+const SCRATCH_FLAG = { inside: false };
+
 /**
  * The upper end of a toe's effective-factor range (as rangeOf over effectiveNumbers gives it), computed with no
  * objects at all: ranking every reading and the sensitivity study call it many times per seam.
@@ -155,7 +158,7 @@ function bendingValue(joint: NotchJoint, g: ToeGeometry, which: 0 | 1, out: { in
 export function effectiveMaxOf(joint: NotchJoint, g: ToeGeometry, b: number): number {
   const kt = lawrenceTension(alphaOf(joint), g.flankDeg, g.t, g.rho);
   const ktInside = lawrenceInside(g.flankDeg, g.t, g.rho);
-  const flag = { inside: false };
+  const flag = SCRATCH_FLAG;
   let inside = -Infinity;
   let all = -Infinity;
   for (let which = 0; which < 2; which++) {

@@ -29,9 +29,9 @@ export interface ToeGeometry {
   readonly flankDeg: number;
   readonly rho: number;
   /** Reinforcement height on the toe's side (butt joints); Kiyak needs it. */
-  readonly h?: number;
+  readonly h?: number | undefined;
   /** Fillet throat a (cruciform and T joints). */
-  readonly a?: number;
+  readonly a?: number | undefined;
   /** Excess convexity of the fillet face; flat or concave faces are flagged for the cruciform formula. */
-  readonly convexity?: number;
+  readonly convexity?: number | undefined;
 }

@@ -273,6 +273,8 @@ export interface Storage {
   /** What a grade is computed from: the seam's set-up given on the server, and every record of the seam. */
   seamMaterial(seamId: string): Promise<SeamMaterial>;
   saveServerGrade(grade: ServerGrade): Promise<void>;
+  /** Seams holding records newer than their server grade (a re-grade was lost, e.g. to a restart). */
+  staleSeams(): Promise<string[]>;
   getServerGrade(seamId: string): Promise<ServerGrade | undefined>;
   listDeviceGrades(seamId: string): Promise<DeviceGradeRow[]>;
 

@@ -247,6 +247,10 @@ export class SqliteStorage implements Storage {
          WHERE excluded.based_on >= server_grades.based_on`,
       ),
       grade: p('SELECT * FROM server_grades WHERE seam_id = ?'),
+      staleSeams: p(
+        `SELECT r.seam_id AS id FROM records r LEFT JOIN server_grades g ON g.seam_id = r.seam_id
+         GROUP BY r.seam_id HAVING max(r.receive_seq) > coalesce(max(g.based_on), 0) ORDER BY r.seam_id`,
+      ),
       deviceGrades: p('SELECT * FROM device_grades WHERE seam_id = ? ORDER BY device_kid'),
       insertChange: p(
         `INSERT INTO changes (kind, item_id, seam_id, device_kid, item, created_at, created_by)
@@ -691,6 +695,10 @@ export class SqliteStorage implements Storage {
       meetsRequired: g.meetsRequired === null ? null : g.meetsRequired ? 1 : 0,
       summary: g.summary,
     });
+  }
+
+  async staleSeams(): Promise<string[]> {
+    return (this.#s.staleSeams.all() as { id: string }[]).map((r) => r.id);
   }
 
   async getServerGrade(seamId: string): Promise<ServerGrade | undefined> {
