@@ -140,7 +140,8 @@ export function deltaAngular(
 ): AngularDelta | { notAssessed: string } {
   const delta = angularDelta(setup, plate, absAlphaDeg);
   const { sigmaM, restraint: ends } = setup;
-  if (!setup.armsKnown) return Number.isNaN(delta) ? { notAssessed: NO_ARMS } : { delta, factor: null, formula: LONG_ARMS };
+  if (!setup.armsKnown)
+    return Number.isNaN(delta) ? { notAssessed: NO_ARMS } : { delta, factor: null, formula: LONG_ARMS };
   if (Number.isNaN(delta)) return { notAssessed: BUCKLED };
   const factor = angularFactor(setup, setup.family === 'butt' ? plateT(setup, plate) : setup.t1);
   const how =

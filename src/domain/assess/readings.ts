@@ -138,8 +138,10 @@ export class SideValues {
           this.index.set(id, entry);
         }
         const pos = positionOf(x);
-        if (!entry.atPosition.has(pos)) entry.atPosition.set(pos, { value: v, from: x, how: 'same position', side });
-        if (!entry.largest || v > entry.largest.value) entry.largest = { value: v, from: x, how: 'largest', side };
+        if (!entry.atPosition.has(pos))
+          entry.atPosition.set(pos, { value: v, from: x, how: 'same position', side });
+        if (!entry.largest || v > entry.largest.value)
+          entry.largest = { value: v, from: x, how: 'largest', side };
       }
     }
   }

@@ -98,7 +98,8 @@ export function samplingSection(
   const gradedReadings = roundGrade?.readings ?? [];
   // The grade lists the round's readings in the same order (by id): use that, and a map only if it differs.
   const sameOrder =
-    gradedReadings.length === readings.length && gradedReadings.every((g, i) => g.readingId === readings[i]?.id);
+    gradedReadings.length === readings.length &&
+    gradedReadings.every((g, i) => g.readingId === readings[i]?.id);
   const graded = sameOrder ? null : new Map(gradedReadings.map((g) => [g.readingId, g]));
   const columnsOnly = !!roundGrade && roundGrade.readingCount > 0 && roundGrade.readings.length === 0;
   const rows = rowParameter(setup.seam.acceptance.edition);

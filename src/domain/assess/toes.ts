@@ -65,7 +65,8 @@ export function toeFactor(setup: Setup, g: ToeGeometry, b: number): ToeFactor {
 }
 
 /** The upper end of a toe's effective-factor range, computed without text or objects (ranking, sensitivity). */
-export const toeScore = (setup: Setup, g: ToeGeometry, b: number): number => effectiveMaxOf(setup.family, g, b);
+export const toeScore = (setup: Setup, g: ToeGeometry, b: number): number =>
+  effectiveMaxOf(setup.family, g, b);
 
 const REFERENCE_BASIS_THICK = `not measured at this toe: the reference radius ${referenceRadius(5)} mm`;
 const REFERENCE_BASIS_THIN = `not measured at this toe: the reference radius ${referenceRadius(1)} mm`;
@@ -119,7 +120,7 @@ export function pickToes(
   const byToe: Reading[][] = [[], [], [], []];
   for (const r of readings) {
     if (!r.toe || r.values.toeAngle === undefined) continue;
-    (byToe[(r.toe.plate - 1) + (r.toe.side === 'root' ? 2 : 0)] as Reading[]).push(r);
+    (byToe[r.toe.plate - 1 + (r.toe.side === 'root' ? 2 : 0)] as Reading[]).push(r);
   }
   const sides = new SideValues(readings);
   TOES.forEach((toe, k) => {
@@ -140,7 +141,14 @@ export function pickToes(
       if (r.values.toeRadius !== undefined) smallest = Math.min(smallest ?? Infinity, r.values.toeRadius);
     }
     // One scratch geometry for scoring every reading; the winner's is rebuilt as its own object.
-    const scratch: MutableGeometry = { t: 0, flankDeg: 0, rho: 1, h: undefined, a: undefined, convexity: undefined };
+    const scratch: MutableGeometry = {
+      t: 0,
+      flankDeg: 0,
+      rho: 1,
+      h: undefined,
+      a: undefined,
+      convexity: undefined,
+    };
     let best: Reading | undefined;
     let bestScore = -Infinity;
     for (const r of list) {
@@ -152,7 +160,14 @@ export function pickToes(
       }
     }
     if (!best) return;
-    const g: MutableGeometry = { t: 0, flankDeg: 0, rho: 1, h: undefined, a: undefined, convexity: undefined };
+    const g: MutableGeometry = {
+      t: 0,
+      flankDeg: 0,
+      rho: 1,
+      h: undefined,
+      a: undefined,
+      convexity: undefined,
+    };
     const h = fillGeometry(g, setup, toe, best, smallest, sides);
     picks.push({
       toe,

@@ -51,7 +51,12 @@ const rootGapBounds = (tOverRho: number, sOverT: number): Bound[] =>
   sOverT === 0 ? [] : [{ name: 's/t', value: sOverT, min: 2 / tOverRho, max: 1 }];
 
 // Inlined comparisons of cruciformBounds and rootGapBounds (no allocation); a test holds them equal to the messages.
-export const anthesCruciformInside = (tOverRho: number, flankDeg: number, aOverT: number, sOverT: number): boolean =>
+export const anthesCruciformInside = (
+  tOverRho: number,
+  flankDeg: number,
+  aOverT: number,
+  sOverT: number,
+): boolean =>
   tOverRho >= 15 &&
   tOverRho <= 100 &&
   flankDeg >= 30 &&
@@ -60,7 +65,12 @@ export const anthesCruciformInside = (tOverRho: number, flankDeg: number, aOverT
   aOverT <= 1 &&
   (sOverT === 0 || (sOverT >= 2 / tOverRho && sOverT <= 1));
 
-export function anthesCruciformOutside(tOverRho: number, flankDeg: number, aOverT: number, sOverT: number): string[] {
+export function anthesCruciformOutside(
+  tOverRho: number,
+  flankDeg: number,
+  aOverT: number,
+  sOverT: number,
+): string[] {
   return [
     ...outsideOf(cruciformBounds(tOverRho, flankDeg, aOverT)),
     ...outsideOf(rootGapBounds(tOverRho, sOverT)).map((m) => `${m} (or s/t = 0)`),

@@ -31,7 +31,12 @@ const bounds = (flankDeg: number, h: number, T: number, rho: number): Bound[] =>
 
 // Inlined comparisons of bounds (no allocation on the hot path); a test holds them equal to the messages.
 export const kiyakInside = (flankDeg: number, h: number, T: number, rho: number): boolean =>
-  flankDeg >= 10 && flankDeg <= 60 && rho / T >= 0.01 && rho / T <= 0.4 && h / T > 0 && Number.isFinite(h / T);
+  flankDeg >= 10 &&
+  flankDeg <= 60 &&
+  rho / T >= 0.01 &&
+  rho / T <= 0.4 &&
+  h / T > 0 &&
+  Number.isFinite(h / T);
 
 export const kiyakOutside = (flankDeg: number, h: number, T: number, rho: number): string[] =>
   outsideOf(bounds(flankDeg, h, T, rho));
@@ -39,7 +44,7 @@ export const kiyakOutside = (flankDeg: number, h: number, T: number, rho: number
 // Derived from the Kiyak form: d ln(Kt − 1)/dα = 0 at α* = 1.067/(1.6775 − 0.2062·ln(h/T) + 0.295·ln(ρ/T)), in degrees.
 export function kiyakPeakFlank(h: number, T: number, rho: number): number {
   const d = 1.6775 - 0.2062 * Math.log(h / T) + 0.295 * Math.log(rho / T);
-  return d > 0 ? (1.067 / d) / RAD : Infinity;
+  return d > 0 ? 1.067 / d / RAD : Infinity;
 }
 
 /** The h/T range the formula was checked over is narrower than the inputs it accepts: say so, but do not refuse. */

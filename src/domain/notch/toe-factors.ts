@@ -71,7 +71,12 @@ function anthesButt(g: ToeGeometry): FormulaNumber {
   const raw = anthesButtBending(ratio, g.flankDeg);
   const inRange = anthesButtInside(ratio, g.flankDeg);
   const search = inRange && !anthesButtRises(ratio, g.flankDeg);
-  return numeric('anthesButtBending', raw, inRange, search ? envelope(anthesButtBending, 1e-3, ratio, 0, g.flankDeg) : null);
+  return numeric(
+    'anthesButtBending',
+    raw,
+    inRange,
+    search ? envelope(anthesButtBending, 1e-3, ratio, 0, g.flankDeg) : null,
+  );
 }
 
 function kiyak(g: ToeGeometry, h: number): FormulaNumber {
@@ -95,15 +100,25 @@ function anthesCruciform(g: ToeGeometry): FormulaNumber {
   const raw = f(ratio, g.flankDeg);
   const inRange = anthesCruciformInside(ratio, g.flankDeg, aOverT, 0);
   const search = inRange && !anthesCruciformRises(ratio, g.flankDeg);
-  return numeric('anthesCruciformBending', raw, inRange, search ? envelope(f, 15, ratio, 30, g.flankDeg) : null);
+  return numeric(
+    'anthesCruciformBending',
+    raw,
+    inRange,
+    search ? envelope(f, 15, ratio, 30, g.flankDeg) : null,
+  );
 }
 
-const alphaOf = (joint: NotchJoint): number => (joint === 'butt' ? LAWRENCE_ALPHA.butt : LAWRENCE_ALPHA.fillet);
+const alphaOf = (joint: NotchJoint): number =>
+  joint === 'butt' ? LAWRENCE_ALPHA.butt : LAWRENCE_ALPHA.fillet;
 
 /** Every applicable formula's number for one toe (no text). Angles in degrees (flank θ), lengths in mm. */
 export function notchNumbers(joint: NotchJoint, g: ToeGeometry): NotchNumbers {
   const bending =
-    joint === 'butt' ? (g.h === undefined ? [anthesButt(g)] : [anthesButt(g), kiyak(g, g.h)]) : [anthesCruciform(g)];
+    joint === 'butt'
+      ? g.h === undefined
+        ? [anthesButt(g)]
+        : [anthesButt(g), kiyak(g, g.h)]
+      : [anthesCruciform(g)];
   // Lawrence rises with θ (tan) and with t/ρ (square root) everywhere: no envelope needed.
   const law = lawrenceTension(alphaOf(joint), g.flankDeg, g.t, g.rho);
   return { bending, tension: numeric('lawrenceTension', law, lawrenceInside(g.flankDeg, g.t, g.rho), null) };
@@ -132,7 +147,10 @@ function bendingValue(joint: NotchJoint, g: ToeGeometry, which: 0 | 1, out: { in
     const raw = anthesCruciformBending(ratio, g.flankDeg, aOverT, 0);
     out.inside = anthesCruciformInside(ratio, g.flankDeg, aOverT, 0);
     if (!out.inside || anthesCruciformRises(ratio, g.flankDeg)) return raw;
-    return Math.max(raw, envelope((r, th) => anthesCruciformBending(r, th, aOverT, 0), 15, ratio, 30, g.flankDeg).value);
+    return Math.max(
+      raw,
+      envelope((r, th) => anthesCruciformBending(r, th, aOverT, 0), 15, ratio, 30, g.flankDeg).value,
+    );
   }
   if (which === 0) {
     const raw = anthesButtBending(ratio, g.flankDeg);
@@ -207,7 +225,10 @@ function described(x: FormulaNumber, outside: readonly string[], notes: string[]
 
 const LAWRENCE_NOTES: Readonly<Record<NotchJoint, readonly string[]>> = {
   butt: [`α_L = ${LAWRENCE_ALPHA.butt} (butt weld, axial; recalled)`],
-  fillet: [`α_L = ${LAWRENCE_ALPHA.fillet} (T or transverse fillet, axial; recalled)`, 'α_L of the non-load-carrying T joint used'],
+  fillet: [
+    `α_L = ${LAWRENCE_ALPHA.fillet} (T or transverse fillet, axial; recalled)`,
+    'α_L of the non-load-carrying T joint used',
+  ],
 };
 
 /** Every applicable notch formula for one toe, with its validity messages and notes. */
@@ -222,14 +243,20 @@ export function toeNotchFactors(joint: NotchJoint, g: ToeGeometry): ToeNotch {
       return described(x, kiyakOutside(g.flankDeg, h, g.t, g.rho), kiyakNotes(h, g.t));
     }
     const notes: string[] = [];
-    if (g.a === undefined) notes.push('throat a unknown: the a/t range (0.3–1) was not checked; a has no effect with s = 0');
+    if (g.a === undefined)
+      notes.push('throat a unknown: the a/t range (0.3–1) was not checked; a has no effect with s = 0');
     if (g.convexity !== undefined && g.convexity < 0.05) {
-      notes.push('flat or concave face (convexity < 0.05 mm): this formula reads about 10 % high against FE there');
+      notes.push(
+        'flat or concave face (convexity < 0.05 mm): this formula reads about 10 % high against FE there',
+      );
     }
     return described(x, anthesCruciformOutside(ratio, g.flankDeg, aOverTOf(g), 0), notes);
   });
   if (joint === 'butt' && g.h === undefined) {
-    unavailable.push({ formula: 'kiyakButtBending', reason: 'needs the reinforcement height h on the toe’s side' });
+    unavailable.push({
+      formula: 'kiyakButtBending',
+      reason: 'needs the reinforcement height h on the toe’s side',
+    });
   }
   const tension = [described(n.tension, lawrenceOutside(g.flankDeg, g.t, g.rho), [...LAWRENCE_NOTES[joint]])];
   return { bending, tension, unavailable };

@@ -112,9 +112,12 @@ function series(positions: readonly number[], means: readonly number[]): Running
 function columnsOf(points: readonly SamplePoint[] | SampleColumns): SampleColumns {
   let c: SampleColumns;
   if (Array.isArray(points)) {
-    const byId = [...(points as readonly SamplePoint[])].sort((a, b) => (a.readingId < b.readingId ? -1 : a.readingId > b.readingId ? 1 : 0));
+    const byId = [...(points as readonly SamplePoint[])].sort((a, b) =>
+      a.readingId < b.readingId ? -1 : a.readingId > b.readingId ? 1 : 0,
+    );
     let coarsest: number | null = null;
-    for (const p of byId) if (p.resolution !== null && (coarsest === null || p.resolution > coarsest)) coarsest = p.resolution;
+    for (const p of byId)
+      if (p.resolution !== null && (coarsest === null || p.resolution > coarsest)) coarsest = p.resolution;
     c = {
       positions: byId.map((p) => p.position),
       values: byId.map((p) => p.value),
@@ -131,7 +134,12 @@ function columnsOf(points: readonly SamplePoint[] | SampleColumns): SampleColumn
   // Readings are usually taken walking along the seam; otherwise order an index and every column by it.
   const order = pos.map((_, i) => i).sort((a, b) => (pos[a] as number) - (pos[b] as number));
   const pick = <T>(xs: readonly T[]): T[] => order.map((i) => xs[i] as T);
-  return { positions: pick(c.positions), values: pick(c.values), margins: pick(c.margins), coarsestResolution: c.coarsestResolution };
+  return {
+    positions: pick(c.positions),
+    values: pick(c.values),
+    margins: pick(c.margins),
+    coarsestResolution: c.coarsestResolution,
+  };
 }
 
 function riskOf(input: AdequacyInput, c: SampleColumns): Risk | { notAssessed: string } {

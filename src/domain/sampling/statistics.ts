@@ -105,7 +105,8 @@ export function atLeastOne(p: number, m: number): number {
 /** The regular spacing of the positions: the median gap between distinct sorted positions. */
 export function pitchOf(positions: readonly number[]): number | null {
   let sorted = true;
-  for (let i = 1; i < positions.length && sorted; i++) sorted = (positions[i] as number) >= (positions[i - 1] as number);
+  for (let i = 1; i < positions.length && sorted; i++)
+    sorted = (positions[i] as number) >= (positions[i - 1] as number);
   const s = sorted ? positions : Float64Array.from(positions).sort();
   const gaps = new Float64Array(Math.max(0, s.length - 1));
   let n = 0;
