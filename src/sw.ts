@@ -19,7 +19,12 @@ precacheAndRoute(self.__WB_MANIFEST);
 cleanupOutdatedCaches();
 
 // Any in-app address (a bookmark, a link from a tag) gets the shell, which routes on the client.
-registerRoute(new NavigationRoute(createHandlerBoundToURL('index.html')));
+// The supervisor's pages and the API are the server's own: never answer them with the app shell.
+registerRoute(
+  new NavigationRoute(createHandlerBoundToURL('index.html'), {
+    denylist: [/^\/supervisor(\/|$)/, /^\/api\//],
+  }),
+);
 
 self.addEventListener('message', (event) => {
   const message: unknown = event.data;

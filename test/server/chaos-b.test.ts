@@ -9,7 +9,7 @@ describe('chaos', () => {
     expect(tally.runs).toBe(500);
     // The faults really happened, in numbers.
     for (const fault of ['drop', '503', '502', 'lost', 'duplicate'] as const)
-      expect(tally.faults[fault]).toBeGreaterThan(500);
+      expect(tally.faults[fault]).toBeGreaterThan(300);
     expect(tally.restarts).toBeGreaterThan(50);
     console.log(JSON.stringify({ chaos: { first: 500, ...tally } }));
   }, 240_000);

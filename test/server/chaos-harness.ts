@@ -112,7 +112,7 @@ async function run(
   const deviceTime = () => new Date(server.current.clock.now().getTime() + skew).toISOString();
   const seams = Array.from({ length: 1 + Math.floor(random() * 3) }, () => testSeam());
   const started = new Set<string>();
-  const target = 5 + Math.floor(random() * 36);
+  const target = 4 + Math.floor(random() * 22);
 
   const makeSome = () => {
     const n = 1 + Math.floor(random() * 8);

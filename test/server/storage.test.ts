@@ -30,6 +30,23 @@ describe('SQLite database file', () => {
     again.close();
   });
 
+  it('writes derived grades without an fsync, and keeps every other commit synchronous FULL', async () => {
+    const storage = SqliteStorage.open(tempFile());
+    const grade = {
+      seamId: 's',
+      basedOn: 1,
+      gradedAt: T(0),
+      state: 'graded',
+      levelMet: 'B',
+      meetsRequired: true,
+      summary: '{}',
+    };
+    await storage.saveServerGrade(grade);
+    expect(storage.database.pragma('synchronous', { simple: true })).toBe(2);
+    expect((await storage.getServerGrade('s'))?.levelMet).toBe('B');
+    await storage.close();
+  });
+
   it('refuses a database from a newer server', () => {
     const file = tempFile();
     openDatabase(file).close();

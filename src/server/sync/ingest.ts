@@ -132,11 +132,27 @@ export function planRecords(records: readonly unknown[]): PlannedRecord[] {
   });
 }
 
+/** The stages of an apply, for `npm run bench:ingest` to say where the time goes. */
+export type IngestStage = 'parseVerify' | 'validate' | 'store';
+
 /** Applies one batch request body. Throws HttpError (4xx) for anything refused as a whole. */
-export async function ingestBatch(deps: SyncDeps, bodyText: string): Promise<BatchReply> {
+export async function ingestBatch(
+  deps: SyncDeps,
+  bodyText: string,
+  timed?: (stage: IngestStage, ms: number) => void,
+): Promise<BatchReply> {
+  let mark = timed ? performance.now() : 0;
+  const lap = (stage: IngestStage) => {
+    if (!timed) return;
+    const t = performance.now();
+    timed(stage, t - mark);
+    mark = t;
+  };
   const { device, verified } = await verifyDeviceRequest(deps, bodyText, 'batch');
+  lap('parseVerify');
   const payload = parseBatchPayload(verified.payload);
   const planned = planRecords(payload.records);
+  lap('validate');
   const receivedAt = deps.now().toISOString();
   const outcome = await deps.storage.applyBatch({
     batchId: payload.batchId,
@@ -148,6 +164,7 @@ export async function ingestBatch(deps: SyncDeps, bodyText: string): Promise<Bat
     records: planned,
     deviceGrades: (payload.deviceGrades ?? []).map((g) => ({ seamId: g.seamId, grade: canonicalJson(g) })),
   });
+  lap('store');
   if (outcome.kind === 'conflict') {
     deps.log.warn('security', {
       what: 'batchConflict',
