@@ -8,7 +8,7 @@ import {
   niceStep,
   spreadLabels,
 } from '../../src/app/components/strip-layout.js';
-import { describeStrip } from '../../src/app/components/StripChart.js';
+import { describeStrip, tableRows, TABLE_ROWS_ALL } from '../../src/app/components/StripChart.js';
 import { buttSeam, reading, seamFile } from '../support/seam-builder.js';
 
 const toe = { plate: 1, side: 'face' } as const;
@@ -93,5 +93,56 @@ describe('strip chart layout', () => {
     expect(spreadLabels([95, 96], 10, 0, 100)).toEqual([90, 100]);
     expect(niceStep(1000, 5)).toBe(200);
     expect(niceStep(3, 3)).toBe(1);
+  });
+});
+
+// A long seam: 6,000 undercut readings at 10 mm pitch on a 60 m seam, every 500th one over the C limit of 0.5 mm
+// (ISO 5817:2014 row 1.7 at t = 10 mm, limits reference §2), so failing marks are sparse among thousands of passes.
+describe('strip chart on a seam with thousands of readings', () => {
+  const count = 6000;
+  const readings = Array.from({ length: count }, (_, i) =>
+    reading({ undercutDepth: i % 500 === 7 ? 0.9 : 0.05 + (i % 9) * 0.04 }, { position: i * 10, toe }),
+  );
+  const g = gradeSeam(seamFile(buttSeam({ length: count * 10 }), readings));
+  const lanes = lanesFromReadings(g.rounds[0]?.readings ?? []);
+  const layout = layoutStrip(lanes, count * 10, 800);
+  const lane = layout.lanes[0];
+  if (!lane) throw new Error('no lane');
+  const plotWidth = layout.plotRight - layout.plotLeft;
+
+  it('draws at most a few marks per 2 px column, and counts the rest as thinned', () => {
+    expect(lane.points.length).toBeLessThanOrEqual(Math.ceil(plotWidth / 2 + 1) * 4);
+    expect(lane.points.length).toBeLessThan(count / 2);
+    expect(lane.thinned).toBe(count - lane.points.length);
+  });
+
+  it('keeps every below-required mark, the extremes of each column, and position order', () => {
+    const failing = lanes[0]?.points.filter((p) => !p.meetsRequired) ?? [];
+    expect(failing).toHaveLength(12);
+    const drawnIds = new Set(lane.points.map((p) => p.point.readingId));
+    for (const f of failing) expect(drawnIds.has(f.readingId)).toBe(true);
+    const values = lane.points.map((p) => p.point.value);
+    expect(Math.max(...values)).toBe(0.9);
+    expect(Math.min(...values)).toBe(0.05);
+    const xs = lane.points.map((p) => p.cx);
+    expect(xs).toEqual([...xs].sort((a, b) => a - b));
+  });
+
+  it('a short seam is drawn whole', () => {
+    const short = layoutStrip(lanesFromReadings(grade().rounds[0]?.readings ?? []), 1000, 800);
+    expect(short.lanes.map((l) => l.thinned)).toEqual([0, 0]);
+  });
+
+  it('the hidden table lists every value on a short seam and only the ones that matter on a long one', () => {
+    const long = tableRows(lanes);
+    expect(count).toBeGreaterThan(TABLE_ROWS_ALL);
+    expect(long.rows.every((r) => !r.point.meetsRequired || r.point.borderline)).toBe(true);
+    expect(long.rows.length + long.left).toBe(count);
+    const short = tableRows(lanesFromReadings(grade().rounds[0]?.readings ?? []));
+    expect(short).toMatchObject({ left: 0 });
+    expect(short.rows).toHaveLength(5);
+    expect(describeStrip(lanes, count * 10, 'Round 1')).toContain(
+      'lists the values below the required level',
+    );
   });
 });

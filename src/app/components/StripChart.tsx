@@ -19,6 +19,19 @@ export interface StripChartProps {
 }
 
 const unitText = (unit: 'mm' | 'deg') => (unit === 'deg' ? '°' : 'mm');
+/** More rows than this and the hidden table lists only the values a reader must hear (below or borderline). */
+export const TABLE_ROWS_ALL = 400;
+
+/** The rows of the hidden table: every value on a short seam; on a long one, only those below or borderline. */
+export function tableRows(lanes: readonly StripLane[]): {
+  rows: { lane: StripLane; point: StripLane['points'][number] }[];
+  left: number;
+} {
+  const all = lanes.flatMap((lane) => lane.points.map((point) => ({ lane, point })));
+  if (all.length <= TABLE_ROWS_ALL) return { rows: all, left: 0 };
+  const rows = all.filter((r) => !r.point.meetsRequired || r.point.borderline);
+  return { rows, left: all.length - rows.length };
+}
 
 /** The drawn width follows the container, so text stays legible on a phone instead of being scaled down. */
 function useWidth(): [(el: HTMLElement | null) => void, number] {
@@ -52,7 +65,7 @@ export function describeStrip(lanes: readonly StripLane[], seamLength: number, c
       ? `${below.length} below the required level, first ${below[0]?.l.title} ${fmtValue(below[0]?.p.value, below[0]?.l.unit ?? 'mm')} at ${fmtNumber(below[0]?.p.at ?? 0)} mm`
       : 'none below the required level',
   );
-  return `${parts.join('; ')}. The table after the chart lists every value.`;
+  return `${parts.join('; ')}. ${count > TABLE_ROWS_ALL ? 'The table after the chart lists the values below the required level or borderline.' : 'The table after the chart lists every value.'}`;
 }
 
 function Marker({ p }: { readonly p: PlacedPoint }) {
@@ -155,6 +168,8 @@ export function StripChart({ readings, seamLength, caption }: StripChartProps) {
     );
   }
   const layout = layoutStrip(lanes, seamLength, width);
+  const thinned = layout.lanes.reduce((n, l) => n + l.thinned, 0);
+  const table = tableRows(lanes);
   return (
     <figure class="strip" ref={ref}>
       <svg
@@ -213,6 +228,12 @@ export function StripChart({ readings, seamLength, caption }: StripChartProps) {
           ringed: below the required level
         </span>
         <span>lines: limits at B, C, D (solid, dashed, dotted)</span>
+        {thinned ? (
+          <span class="strip-thinned">
+            {thinned} of {lanes.reduce((n, l) => n + l.points.length, 0)} values not drawn: where readings
+            crowd, each column shows its highest, lowest, below-required and targeted ones
+          </span>
+        ) : null}
       </figcaption>
       {/* Wrapped: a table does not shrink to the 1 px of the hiding class and would widen the page. */}
       <div class="visually-hidden">
@@ -229,35 +250,43 @@ export function StripChart({ readings, seamLength, caption }: StripChartProps) {
             </tr>
           </thead>
           <tbody>
-            {lanes.flatMap((l) =>
-              l.points.map((p) => (
-                <tr key={`${l.rowId}-${p.readingId}`}>
-                  <td>
-                    {l.row} {l.title}
-                  </td>
-                  <td>
-                    {fmtNumber(p.at)}
-                    {p.end === undefined ? '' : `–${fmtNumber(p.end)}`} mm
-                  </td>
-                  <td>{p.sampling === 'targeted' ? 'targeted' : 'at pitch'}</td>
-                  <td>{fmtValue(p.value, l.unit)}</td>
-                  <td>
-                    {(['B', 'C', 'D'] as const)
-                      .map(
-                        (lv) =>
-                          `${lv} ${p.limits[lv] === null || p.limits[lv] === undefined ? 'none' : fmtValue(p.limits[lv], l.unit)}`,
-                      )
-                      .join(', ')}
-                  </td>
-                  <td>
-                    {levelText(p.levelMet)}
-                    {p.meetsRequired ? '' : ', below the required level'}
-                    {p.borderline ? ', borderline' : ''}
-                  </td>
-                </tr>
-              )),
-            )}
+            {table.rows.map(({ lane: l, point: p }) => (
+              <tr key={`${l.rowId}-${p.readingId}`}>
+                <td>
+                  {l.row} {l.title}
+                </td>
+                <td>
+                  {fmtNumber(p.at)}
+                  {p.end === undefined ? '' : `–${fmtNumber(p.end)}`} mm
+                </td>
+                <td>{p.sampling === 'targeted' ? 'targeted' : 'at pitch'}</td>
+                <td>{fmtValue(p.value, l.unit)}</td>
+                <td>
+                  {(['B', 'C', 'D'] as const)
+                    .map(
+                      (lv) =>
+                        `${lv} ${p.limits[lv] === null || p.limits[lv] === undefined ? 'none' : fmtValue(p.limits[lv], l.unit)}`,
+                    )
+                    .join(', ')}
+                </td>
+                <td>
+                  {levelText(p.levelMet)}
+                  {p.meetsRequired ? '' : ', below the required level'}
+                  {p.borderline ? ', borderline' : ''}
+                </td>
+              </tr>
+            ))}
           </tbody>
+          {table.left ? (
+            <tfoot>
+              <tr>
+                <td colSpan={6}>
+                  {table.left} further values meet the required level and are not borderline; the reading list
+                  below has every one.
+                </td>
+              </tr>
+            </tfoot>
+          ) : null}
         </table>
       </div>
     </figure>

@@ -101,6 +101,8 @@ export interface PlacedLane {
   /** Levels whose limit varies along the lane. */
   readonly varying: readonly Level[];
   readonly points: readonly PlacedPoint[];
+  /** Points of the lane not drawn because another point of the same pixel column stands for them. */
+  readonly thinned: number;
 }
 
 export interface StripLayout {
@@ -120,6 +122,51 @@ const AXIS = 46;
 const LEFT = 52;
 const RIGHT = 86;
 const LABEL_GAP = 15;
+/** Width of a column in which only the extremes are drawn once a lane holds more points than it can show. */
+const COLUMN_PX = 2;
+
+/**
+ * The points worth drawing when a lane holds more than its width can show (a seam with thousands of readings):
+ * per 2 px column, the highest and the lowest value, the first below the required level and the first targeted
+ * reading. What a reader must see survives — extremes and every column with a failing mark — and the SVG stays a
+ * few hundred elements, so the chart renders in one frame instead of blocking the page.
+ */
+export function thinPoints(points: readonly PlacedPoint[], plotWidth: number): PlacedPoint[] {
+  if (points.length <= plotWidth / COLUMN_PX) return [...points];
+  const columns = new Map<number, PlacedPoint[]>();
+  for (const p of points) {
+    const key = Math.floor(p.cx / COLUMN_PX);
+    const kept = columns.get(key);
+    if (kept) kept.push(p);
+    else columns.set(key, [p]);
+  }
+  const out = new Set<PlacedPoint>();
+  for (const col of columns.values()) {
+    let hi = col[0] as PlacedPoint;
+    let lo = hi;
+    for (const p of col) {
+      if (p.point.value > hi.point.value) hi = p;
+      if (p.point.value < lo.point.value) lo = p;
+    }
+    out.add(hi).add(lo);
+    const below = col.find((p) => !p.point.meetsRequired);
+    if (below) out.add(below);
+    const targeted = col.find((p) => p.point.sampling === 'targeted');
+    if (targeted) out.add(targeted);
+  }
+  return points.filter((p) => out.has(p));
+}
+
+/** Per-reading limit ticks thinned the same way: one tick per level and pixel column at each distinct height. */
+function thinTicks(ticks: readonly LimitTick[]): LimitTick[] {
+  const seen = new Set<string>();
+  return ticks.filter((t) => {
+    const key = `${t.level}:${Math.floor(t.x / COLUMN_PX)}:${Math.round(t.y)}`;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
 
 /** Round steps of 1, 2 or 5 × 10^n giving about `target` intervals. */
 export function niceStep(span: number, target: number): number {
@@ -181,8 +228,13 @@ export function layoutStrip(lanes: readonly StripLane[], seamLength: number, wid
         const v = p.limits[l];
         if (typeof v === 'number' && Number.isFinite(v)) values.push(v);
       }
-    let lo = Math.min(...values);
-    let hi = Math.max(...values);
+    // A loop, not Math.min(...values): a long seam's values would overflow the argument list.
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const v of values) {
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
     if (lane.unit === 'mm') lo = Math.min(0, lo);
     if (!(hi > lo)) {
       hi = lo + (lane.unit === 'deg' ? 10 : 1);
@@ -215,7 +267,7 @@ export function layoutStrip(lanes: readonly StripLane[], seamLength: number, wid
         if (typeof v === 'number' && Number.isFinite(v)) ticks.push({ level, x: xOf(p.at), y: yOf(v) });
       }
     }
-    const points = lane.points.map((p) => {
+    const all = lane.points.map((p) => {
       const cx = xOf(p.at);
       const spans: (readonly [number, number])[] = [];
       if (p.end !== undefined) {
@@ -224,7 +276,19 @@ export function layoutStrip(lanes: readonly StripLane[], seamLength: number, wid
       }
       return { point: p, cx, cy: yOf(p.value), spans };
     });
-    placed.push({ lane, top, plotTop, plotBottom, yTicks, lines, ticks, varying, points });
+    const points = thinPoints(all, plotRight - plotLeft);
+    placed.push({
+      lane,
+      top,
+      plotTop,
+      plotBottom,
+      yTicks,
+      lines,
+      ticks: thinTicks(ticks),
+      varying,
+      points,
+      thinned: all.length - points.length,
+    });
     top = plotBottom + LANE_GAP;
   }
   const axisY = top + 4;
