@@ -27,6 +27,8 @@ export interface EntryContext {
   readonly byId: Map<string, Reading>;
   /** Reading id → the id of the later reading that supersedes it (a correction or a withdrawal). */
   readonly supersededBy: Map<string, string>;
+  /** How many readings count now (not withdrawals, not superseded), kept as readings arrive so no screen recounts. */
+  counting: number;
 }
 
 type FileParts = Pick<SeamFile, 'seam' | 'rounds' | 'readings'>;
@@ -38,6 +40,7 @@ export function entryContext(file: FileParts): EntryContext {
     rounds: file.rounds,
     byId: new Map(),
     supersededBy: new Map(),
+    counting: 0,
   };
   for (const r of file.readings) addToContext(ctx, r);
   return ctx;
@@ -45,8 +48,19 @@ export function entryContext(file: FileParts): EntryContext {
 
 /** Records a reading that was checked and stored. */
 export function addToContext(ctx: EntryContext, reading: Reading): void {
+  // Counted once per id: the same reading read again (another tab's refresh) changes nothing.
+  const fresh = !ctx.byId.has(reading.id);
   ctx.byId.set(reading.id, reading);
-  if (reading.supersedes !== undefined) ctx.supersededBy.set(reading.supersedes, reading.id);
+  if (!fresh) {
+    if (reading.supersedes !== undefined) ctx.supersededBy.set(reading.supersedes, reading.id);
+    return;
+  }
+  if (!reading.withdrawn) ctx.counting += 1;
+  if (reading.supersedes !== undefined) {
+    const target = ctx.byId.get(reading.supersedes);
+    if (target && !target.withdrawn && !ctx.supersededBy.has(target.id)) ctx.counting -= 1;
+    ctx.supersededBy.set(reading.supersedes, reading.id);
+  }
 }
 
 /** The superseded reading stands alone in the check: its own link back (if any) is not followed. */

@@ -68,7 +68,7 @@ export async function openGauge(page: Page, origin: string): Promise<void> {
 }
 
 // Page-side loop, as text (this project compiles the bench without DOM typings).
-const ENTER_BATCH = `async ({ from, count }) => {
+export const ENTER_BATCH = `async ({ from, count }) => {
   const form = document.querySelector('form.gauge-form');
   const status = form.querySelector('.gauge-status');
   const summary = () => document.querySelector('.gauge-list summary').textContent;

@@ -6,6 +6,7 @@ import { buildRestore, buildWithdrawal } from '../../src/app/screens/gauge/readi
 import {
   afterUndo,
   currentReadings,
+  latestCurrent,
   loadSession,
   planUndo,
   planUndoIn,
@@ -16,6 +17,7 @@ import {
   type SessionEntry,
 } from '../../src/app/screens/gauge/session.js';
 import { buttSeam, reading, seamFile } from '../support/seam-builder.js';
+import { addToContext, entryContext } from '../../workers/entry-check-api.js';
 
 const toe = { plate: 1, side: 'face' } as const;
 const a = reading({ undercutDepth: 0.3 }, { id: 'a', toe });
@@ -45,6 +47,29 @@ describe('what undo acts on', () => {
   it('lists the readings that count: no withdrawals, nothing superseded', () => {
     expect(currentReadings([a, b, fixB]).map((r) => r.id)).toEqual(['a', 'fixB']);
     expect(currentReadings([a, b, withdrawB]).map((r) => r.id)).toEqual(['a']);
+  });
+
+  it('finds the latest readings that count from the newest back, as the full list would', () => {
+    const many = [a, b, fixB, ...Array.from({ length: 30 }, (_, i) => reading({}, { id: `n${i}` }))];
+    const wN5 = reading({}, { id: 'wN5', supersedes: 'n5', withdrawn: true });
+    const all = [...many, wN5];
+    const ctx = entryContext(seamFile(buttSeam(), all));
+    const full = currentReadings(all).reverse();
+    expect(latestCurrent(all, ctx.supersededBy, 20)).toEqual(full.slice(0, 20));
+    expect(latestCurrent(all, ctx.supersededBy, 100)).toEqual(full);
+  });
+
+  it('keeps the count of readings that count as readings arrive, without recounting', () => {
+    const ctx = entryContext(seamFile(buttSeam(), [a, b]));
+    expect(ctx.counting).toBe(2);
+    addToContext(ctx, fixB);
+    expect(ctx.counting).toBe(currentReadings([a, b, fixB]).length);
+    addToContext(ctx, fixB);
+    expect(ctx.counting).toBe(2);
+    const withdrawFix = reading({}, { id: 'wFix', supersedes: 'fixB', withdrawn: true });
+    addToContext(ctx, withdrawFix);
+    expect(ctx.counting).toBe(currentReadings([a, b, fixB, withdrawFix]).length);
+    expect(ctx.counting).toBe(1);
   });
 });
 

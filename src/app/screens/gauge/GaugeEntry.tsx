@@ -70,15 +70,7 @@ import {
   rememberedPitch,
   rememberPitch,
 } from './remembered.js';
-import {
-  afterUndo,
-  currentReadings,
-  loadSession,
-  planUndoIn,
-  saveSession,
-  withEntry,
-  type SessionEntry,
-} from './session.js';
+import { afterUndo, loadSession, planUndoIn, saveSession, withEntry, type SessionEntry } from './session.js';
 import { sidesWithToes } from './joint-geometry.js';
 import { noteEngagement } from '../../pwa/persistence.js';
 import { useGrade } from './use-grade.js';
@@ -178,7 +170,6 @@ export function GaugeEntry(props: {
   const resolutionDeg = (target ? target.instrument.resolutionDeg : setting.resolutionDeg) ?? 1;
   const pitchError = checkPitch(pitch, length);
 
-  const current = useMemo(() => currentReadings(data.entryOrder), [data.entryOrder]);
   // Readings a later one corrected or withdrew; the context keeps them by id, so nothing is recounted per save.
   const replacedCount = data.context.supersededBy.size;
   const undoPlan = planUndoIn(sessionIds, data.context);
@@ -646,7 +637,9 @@ export function GaugeEntry(props: {
         ) : null}
         <ReadingList
           seam={seam}
-          readings={current}
+          entryOrder={data.entryOrder}
+          supersededBy={data.context.supersededBy}
+          counting={data.context.counting}
           replacedCount={replacedCount}
           sessionIds={sessionSet}
           correctingId={target?.id ?? null}

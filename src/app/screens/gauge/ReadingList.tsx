@@ -1,6 +1,7 @@
 import { useState } from 'preact/hooks';
 import type { Reading, Seam } from '../../../domain/index.js';
 import { describeReading } from './reading-summary.js';
+import { currentReadings, latestCurrent } from './session.js';
 
 const SHOWN = 20;
 
@@ -10,21 +11,27 @@ const SHOWN = 20;
  */
 export function ReadingList(props: {
   readonly seam: Seam;
-  /** Current readings in entry order. */
-  readonly readings: readonly Reading[];
+  /** Every reading of the seam in entry order, withdrawals and superseded ones included. */
+  readonly entryOrder: readonly Reading[];
+  /** Reading id → the later reading that supersedes it. */
+  readonly supersededBy: ReadonlyMap<string, string>;
+  /** How many readings count now. */
+  readonly counting: number;
   readonly replacedCount: number;
   readonly sessionIds: ReadonlySet<string>;
   readonly correctingId: string | null;
   readonly onCorrect: (r: Reading) => void;
 }) {
   const [all, setAll] = useState(false);
-  // Only the rows shown are copied and reversed: a seam may hold thousands of readings.
-  const total = props.readings.length;
-  const list = (all ? [...props.readings] : props.readings.slice(Math.max(0, total - SHOWN))).reverse();
+  // Only the rows shown are looked for: a seam may hold thousands of readings, and this renders on every save.
+  const total = props.counting;
+  const list = all
+    ? currentReadings(props.entryOrder).reverse()
+    : latestCurrent(props.entryOrder, props.supersededBy, SHOWN);
   return (
     <details class="gauge-list">
       <summary>
-        Correct a reading ({props.readings.length} that count
+        Correct a reading ({total} that count
         {props.replacedCount ? `, ${props.replacedCount} corrected or withdrawn kept on record` : ''})
       </summary>
       {list.length ? (

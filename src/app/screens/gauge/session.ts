@@ -29,7 +29,7 @@ export function loadSession(store: KeyValueStore, seamId: string): SessionEntry[
  * How many of a session's latest entries undo can reach back through, one undo at a time. The session is written
  * to session storage on every save, so it is kept to a size whose writing does not grow with a long session.
  */
-export const SESSION_LIMIT = 1000;
+export const SESSION_LIMIT = 200;
 
 /** The session with one more entry, the oldest dropped past SESSION_LIMIT. */
 export function withEntry(session: readonly SessionEntry[], entry: SessionEntry): SessionEntry[] {
@@ -51,6 +51,23 @@ export function replacedIds(readings: readonly Reading[]): Set<string> {
 export function currentReadings(readings: readonly Reading[]): Reading[] {
   const replaced = replacedIds(readings);
   return readings.filter((r) => !r.withdrawn && !replaced.has(r.id));
+}
+
+/**
+ * The latest `limit` readings that count now, newest first, found by walking back from the newest: a save on a
+ * seam with thousands of readings does not filter them all again.
+ */
+export function latestCurrent(
+  readings: readonly Reading[],
+  supersededBy: ReadonlyMap<string, string>,
+  limit: number,
+): Reading[] {
+  const out: Reading[] = [];
+  for (let i = readings.length - 1; i >= 0 && out.length < limit; i--) {
+    const r = readings[i];
+    if (r && !r.withdrawn && !supersededBy.has(r.id)) out.push(r);
+  }
+  return out;
 }
 
 export type UndoPlan =
