@@ -216,6 +216,11 @@ export interface Store {
    * the batch is dropped once every one of its records is answered. Returns how many records left the outbox.
    */
   settleBatch(batchId: string, answers: readonly RecordAnswer[]): Promise<number>;
+  /**
+   * Gives up a batch that was never accepted and never will be (signed by a key the server refuses since the
+   * device enrolled again): its records stay in the outbox and go into new batches.
+   */
+  releaseBatch(batchId: string): Promise<void>;
   /** Takes acknowledged records out of the outbox (and nothing else: readings stay). Returns how many left. */
   acknowledge(recordIds: readonly string[]): Promise<number>;
   exportBackup(): Promise<BackupFile>;

@@ -60,6 +60,7 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     pendingBatches: () => sendLog.pendingBatches(ctx),
     noteAttempt: (batchId, error) => sendLog.noteAttempt(ctx, batchId, error),
     settleBatch: (batchId, answers) => sendLog.settleBatch(ctx, batchId, answers),
+    releaseBatch: (batchId) => sendLog.releaseBatch(ctx, batchId),
     acknowledge: (recordIds) => sendLog.acknowledge(ctx, recordIds),
     exportBackup: () => exportBackup(ctx),
     importBackup: (data) => importBackup(ctx, data),

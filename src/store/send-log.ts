@@ -127,6 +127,22 @@ export async function settleBatch(
   });
 }
 
+export async function releaseBatch(ctx: StoreContext, batchId: string): Promise<void> {
+  await ctx.conn.run(['sendLog', 'batches'], 'readwrite', async (tx) => {
+    const batch = await tx.objectStore('batches').get(batchId);
+    if (!batch) return;
+    const log = tx.objectStore('sendLog');
+    for (const recordId of batch.recordIds) {
+      const state = await log.get(recordId);
+      if (state?.batchId !== batchId) continue;
+      const rest: { -readonly [K in keyof SendState]: SendState[K] } = { ...state };
+      delete rest.batchId;
+      await log.put(rest);
+    }
+    await tx.objectStore('batches').delete(batchId);
+  });
+}
+
 type Writable<N extends StoreNames<BeadbookDB>> = IDBPObjectStore<
   BeadbookDB,
   ArrayLike<StoreNames<BeadbookDB>>,

@@ -43,6 +43,11 @@ export interface DeviceVault {
   /** The enrolment of the current key, or null when the device has not enrolled (or enrolled another key). */
   enrolment(): Promise<Enrolment | null>;
   saveEnrolment(enrolment: Enrolment): Promise<void>;
+  /**
+   * Forgets the key and its enrolment, so the next key() makes a new one: for a device the server revoked, which
+   * can only come back as a new device.
+   */
+  renewKey(): Promise<void>;
   close(): void;
 }
 
@@ -127,6 +132,13 @@ export function openDeviceVault(options: DeviceVaultOptions = {}): DeviceVault {
       const database = await connect();
       const tx = database.transaction('identity', 'readwrite', { durability: 'strict' });
       await tx.store.put({ id: 'enrolment', ...enrolment });
+      await tx.done;
+    },
+    async renewKey() {
+      const database = await connect();
+      const tx = database.transaction('identity', 'readwrite', { durability: 'strict' });
+      await tx.store.delete('enrolment');
+      await tx.store.delete('device');
       await tx.done;
     },
     close() {
