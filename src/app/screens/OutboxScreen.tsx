@@ -1,0 +1,86 @@
+// The Outbox: what waits to reach the server and why, the sender's state with "Send now", and the tablet's
+// enrolment. Records leave only when the server confirms them; nothing on this screen deletes unsent data.
+import { useCallback, useEffect, useState } from 'preact/hooks';
+import type { OutboxItem } from '../../store/api.js';
+import { getStore } from '../services/store.js';
+import { getSync, type SyncClient } from '../services/sync.js';
+import type { SenderStatus } from '../sync/sender.js';
+import { describeSender } from './outbox/describe.js';
+import { EnrolmentPanel } from './outbox/EnrolmentPanel.js';
+import { WaitingList } from './outbox/WaitingList.js';
+
+const errorText = (e: unknown) => (e instanceof Error ? e.message : String(e));
+
+export default function OutboxScreen() {
+  const [sync, setSync] = useState<SyncClient | null>(null);
+  const [status, setStatus] = useState<SenderStatus | null>(null);
+  const [items, setItems] = useState<OutboxItem[] | null>(null);
+  const [error, setError] = useState<string | null>(null);
+
+  const refresh = useCallback(() => {
+    getStore()
+      .then((s) => s.outboxItems())
+      .then(setItems, (e: unknown) => setError(`The outbox could not be read: ${errorText(e)}`));
+  }, []);
+
+  useEffect(() => {
+    let unsubscribe = () => {};
+    getSync().then(
+      (client) => {
+        setSync(client);
+        unsubscribe = client.sender.subscribe((s) => {
+          setStatus(s);
+          if (s.state !== 'sending') refresh();
+        });
+      },
+      (e: unknown) => setError(`Sending cannot start: ${errorText(e)}`),
+    );
+    refresh();
+    return () => unsubscribe();
+  }, [refresh]);
+
+  const line = status && items ? describeSender(status, items.length) : null;
+  return (
+    <section class="outbox" aria-labelledby="outbox-title">
+      <h1 id="outbox-title">Outbox</h1>
+      <p>
+        Seam set-ups, rounds, checklist answers and readings wait here until the yard server confirms it holds
+        them. Demo seams are never sent. Nothing here deletes unsent records.
+      </p>
+      {error ? (
+        <p role="alert" class="help help-error">
+          ⚠ {error}
+        </p>
+      ) : null}
+      <div class="panel" aria-live="polite">
+        <h2>Sending</h2>
+        <p class="sender-state" data-state={status?.state ?? 'starting'}>
+          {line ? (
+            <>
+              <span aria-hidden="true">{line.mark} </span>
+              {line.text}
+            </>
+          ) : (
+            'Starting…'
+          )}
+        </p>
+        <p>
+          <strong class="outbox-count">{items === null ? '…' : items.length}</strong> waiting.
+        </p>
+        <button
+          type="button"
+          class="primary"
+          disabled={!sync || status?.state === 'sending'}
+          onClick={() => void sync?.sender.sendNow()}
+        >
+          Send now
+        </button>
+      </div>
+      {sync ? <EnrolmentPanel sync={sync} /> : null}
+      <div class="panel">
+        <h2>Waiting records</h2>
+        {items ? <WaitingList items={items} /> : <p>Reading the outbox…</p>}
+      </div>
+    </section>
+  );
+}
