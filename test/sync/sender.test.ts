@@ -15,6 +15,7 @@ import {
   tablet,
 } from './support.js';
 import { enrolDevice } from '../../src/app/sync/enrol-device.js';
+import { OutboxSender } from '../../src/app/sync/sender.js';
 
 const busy = () =>
   new Response(JSON.stringify({ error: 'unavailable', message: 'busy' }), {
@@ -105,6 +106,31 @@ describe('outbox sender', () => {
     const held = await serverRecordIds(server, kid);
     expect(held).toHaveLength(made.length);
     expect(t.wire.bodies[1]).toBe(t.wire.bodies[0]);
+  });
+
+  it('F4, F11: after a reload, and weeks later, the kept batch is resent byte for byte and stored once', async () => {
+    const server = await testServer();
+    const t = await tablet(server);
+    const kid = await enrol(server, t);
+    await seamWithReadings(t.store, 's-1', 2);
+    const made = await outboxIds(t.store);
+    t.wire.intercept = (path, n) => (path === '/api/sync/batches' && n === 1 ? 'lose' : undefined);
+    expect((await t.sender.sendNow()).state).toBe('waiting');
+    t.sender.stop();
+
+    // The page is gone; 40 days on, a new page starts a new sender on the same store and key.
+    server.clock.advance(40 * 24 * 3600 * 1000);
+    const reloaded = new OutboxSender({
+      store: t.store,
+      vault: t.vault,
+      transport: () => t.wire.transport,
+      setTimer: () => undefined,
+    });
+    expect((await reloaded.sendNow()).state).toBe('idle');
+    expect(t.wire.bodies).toHaveLength(2);
+    expect(t.wire.bodies[1]).toBe(t.wire.bodies[0]);
+    expect((await serverRecordIds(server, kid)).sort()).toEqual([...made].sort());
+    expect(await t.store.outboxCount()).toBe(0);
   });
 
   it('F2: a record the server refuses stays with its reason; the rest are delivered', async () => {

@@ -110,10 +110,10 @@ export async function seamWithReadings(store: Store, seamId: string, n: number):
 export const outboxIds = async (store: Store): Promise<string[]> =>
   (await store.outboxEntries()).map((e) => e.recordId);
 
-/** Record ids the server holds from this device. */
+/** Record ids the server holds (from this device), read through its storage module. */
 export async function serverRecordIds(server: TestServer, deviceKid?: string): Promise<string[]> {
-  const res = await server.admin('GET', `/records${deviceKid ? `?deviceKid=${deviceKid}` : ''}`);
-  return ((await res.json()) as { id: string }[]).map((r) => r.id);
+  const records = await server.storage.listRecords(deviceKid === undefined ? {} : { deviceKid });
+  return records.map((r) => r.id);
 }
 
 /**
