@@ -38,6 +38,9 @@ describe('outbox words', () => {
     expect(lines[3]?.text).toContain('the server answered 503');
     expect(lines[3]?.text).toContain('records stay here');
     expect(lines[4]?.text).toContain('Not enrolled');
+    const allRefused = describeSender(status({}), 2, 2);
+    expect(allRefused.mark).toBe('✗');
+    expect(allRefused.text).toContain('2 records were refused');
   });
 
   it('shows a refused record with the reason, and a failed try with its error', () => {

@@ -39,7 +39,10 @@ export default function OutboxScreen() {
     return () => unsubscribe();
   }, [refresh]);
 
-  const line = status && items ? describeSender(status, items.length) : null;
+  const refused = items?.filter((i) => i.send?.rejected).length ?? 0;
+  const line = status && items ? describeSender(status, items.length, refused) : null;
+  // Batches sealed while the tablet had a key, but no key now: the browser cleared the key's storage (F15).
+  const keyLost = status?.state === 'notEnrolled' && (items ?? []).some((i) => i.send?.batchId !== undefined);
   return (
     <section class="outbox" aria-labelledby="outbox-title">
       <h1 id="outbox-title">Outbox</h1>
@@ -50,6 +53,12 @@ export default function OutboxScreen() {
       {error ? (
         <p role="alert" class="help help-error">
           ⚠ {error}
+        </p>
+      ) : null}
+      {keyLost ? (
+        <p role="alert" class="banner banner-bad">
+          ⚠ This tablet's device key is gone: the browser cleared part of its storage. The records are still
+          here. Enrol again with a new code from the supervisor; they will then be sent.
         </p>
       ) : null}
       <div class="panel" aria-live="polite">

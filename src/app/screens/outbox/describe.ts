@@ -10,7 +10,8 @@ export interface Line {
 
 const time = (ms: number) => new Date(ms).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
 
-export function describeSender(status: SenderStatus, waiting: number): Line {
+/** `waiting` counts every record in the outbox; `refused` those of them the server refused. */
+export function describeSender(status: SenderStatus, waiting: number, refused = 0): Line {
   switch (status.state) {
     case 'sending':
       return { mark: '↻', text: 'Sending…' };
@@ -34,6 +35,14 @@ export function describeSender(status: SenderStatus, waiting: number): Line {
     case 'idle':
       if (waiting === 0)
         return { mark: '✓', text: 'Everything recorded on this tablet has reached the server.' };
+      if (refused === waiting) {
+        const which =
+          refused === 1 ? '1 record was refused and stays' : `${refused} records were refused and stay`;
+        return {
+          mark: '✗',
+          text: `Everything else has reached the server; ${which} on this tablet (reasons below).`,
+        };
+      }
       return {
         mark: '○',
         text:
