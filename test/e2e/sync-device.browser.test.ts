@@ -112,8 +112,21 @@ describe('signed sync from the tablet', () => {
     const local = await localRecords(page);
     expect(local.readings).toHaveLength(2);
     expect(local.outbox.map((e) => e.kind).sort()).toEqual(['reading', 'reading', 'round', 'seamSetup']);
-    // Offline: nothing has reached the server.
+    // Offline: nothing has reached the server, and the Outbox screen lists what waits.
     expect(await serverRecords(server)).toEqual([]);
+    await page.getByRole('navigation', { name: 'Screens' }).getByRole('link', { name: 'Outbox' }).click();
+    await expect.poll(() => page.locator('.outbox-count').textContent()).toBe('4');
+    expect(await page.locator('li.outbox-item').count()).toBe(4);
+    expect(await page.locator('li.outbox-item', { hasText: 'Reading' }).count()).toBe(2);
+    // Gloved hands: 48 px touch targets (common practice; the shell's own rule).
+    for (const control of [
+      page.getByRole('button', { name: 'Send now' }),
+      page.getByRole('button', { name: 'Enrol again with a new code' }),
+      page.getByRole('navigation', { name: 'Screens' }).getByRole('link', { name: 'Outbox' }),
+    ]) {
+      const box = await control.boundingBox();
+      expect(box?.height ?? 0).toBeGreaterThanOrEqual(48);
+    }
     expect(errors).toEqual([]);
     await context.close();
 
