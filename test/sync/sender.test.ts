@@ -53,6 +53,21 @@ describe('outbox sender', () => {
     expect(t.wire.bodies).toHaveLength(3);
   });
 
+  it('never sends demo data', async () => {
+    const server = await testServer();
+    const t = await tablet(server);
+    const kid = await enrol(server, t);
+    expect(await t.store.loadDemo()).toBeGreaterThan(0);
+    await seamWithReadings(t.store, 's-1', 1);
+    await t.sender.sendNow();
+    const held = await serverRecordIds(server, kid);
+    expect(held).toHaveLength(3);
+    const demoSeams = (await t.store.listSeams()).filter((s) => s.namespace === 'demo').map((s) => s.id);
+    const seamsHeld = new Set((await server.storage.listRecords({ deviceKid: kid })).map((r) => r.seamId));
+    expect(demoSeams.filter((id) => seamsHeld.has(id))).toEqual([]);
+    expect([...seamsHeld]).toEqual(['s-1']);
+  });
+
   it('F1, F10: keeps records through 503s and lost connections, backs off, then delivers once', async () => {
     const server = await testServer();
     const t = await tablet(server);
