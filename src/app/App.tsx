@@ -10,6 +10,7 @@ const loadSetup = () => import('./screens/SeamSetupScreen.js');
 const loadGauge = () => import('./screens/GaugeScreen.js');
 const loadSettings = () => import('./screens/SettingsScreen.js');
 const loadCaution = () => import('./screens/CautionScreen.js');
+const loadOutbox = () => import('./screens/OutboxScreen.js');
 
 function useOnline(): boolean {
   const [online, setOnline] = useState(() => navigator.onLine);
@@ -79,6 +80,9 @@ export function App() {
           <a href={hrefOf({ name: 'seamNew' })} aria-current={route.name === 'seamNew' ? 'page' : undefined}>
             New seam
           </a>
+          <a href={hrefOf({ name: 'outbox' })} aria-current={route.name === 'outbox' ? 'page' : undefined}>
+            Outbox
+          </a>
           <a
             href={hrefOf({ name: 'settings' })}
             aria-current={route.name === 'settings' ? 'page' : undefined}
@@ -96,6 +100,7 @@ export function App() {
         {route.name === 'gauge' ? <Lazy load={loadGauge} props={{ id: route.id }} /> : null}
         {route.name === 'settings' ? <Lazy load={loadSettings} props={{}} /> : null}
         {route.name === 'caution' ? <Lazy load={loadCaution} props={{}} /> : null}
+        {route.name === 'outbox' ? <Lazy load={loadOutbox} props={{}} /> : null}
       </main>
       <footer>
         <a href={hrefOf({ name: 'caution' })}>Caution: what the grades mean and what they do not</a>

@@ -1,6 +1,7 @@
 import { render } from 'preact';
 import { App } from './App.js';
 import { startPwa } from './pwa/start.js';
+import { startSync } from './services/sync.js';
 import './shell.css';
 
 const root = document.getElementById('app');
@@ -8,3 +9,5 @@ const root = document.getElementById('app');
 if (root) render(<App />, root);
 // Service worker and update notice (own render root, above #app).
 startPwa();
+// Sends what waits in the outbox once the device is enrolled; wakes again on the \`online\` event.
+startSync();

@@ -8,6 +8,7 @@ export type Route =
   | { readonly name: 'seamEdit'; readonly id: string }
   | { readonly name: 'gauge'; readonly id: string }
   | { readonly name: 'settings' }
+  | { readonly name: 'outbox' }
   | { readonly name: 'caution' };
 
 export function parseRoute(hash: string): Route {
@@ -20,6 +21,7 @@ export function parseRoute(hash: string): Route {
     return { name: 'seam', id };
   }
   if (head === 'settings') return { name: 'settings' };
+  if (head === 'outbox') return { name: 'outbox' };
   if (head === 'caution') return { name: 'caution' };
   return { name: 'seams' };
 }
@@ -38,6 +40,8 @@ export function hrefOf(route: Route): string {
       return `#/seam/${encodeURIComponent(route.id)}/gauge`;
     case 'settings':
       return '#/settings';
+    case 'outbox':
+      return '#/outbox';
     case 'caution':
       return '#/caution';
   }

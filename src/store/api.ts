@@ -95,6 +95,47 @@ export interface OutboxEntry {
   readonly createdAt: string;
 }
 
+/** A batch as sealed (signed) when first sent; kept until the server has answered every record in it. */
+export interface SealedBatchRecord {
+  readonly batchId: string;
+  /** The batch's number on this device (1, 2, 3, …), in the order the batches were sealed. */
+  readonly deviceSeq: number;
+  /** The key it was signed with. */
+  readonly kid: string;
+  readonly recordIds: readonly string[];
+  /** The exact request body: resent byte for byte, never sealed again. */
+  readonly body: string;
+  readonly sealedAt: string;
+  readonly attempts: number;
+  readonly lastAttemptAt?: string;
+  readonly lastError?: string;
+}
+
+/** How sending went for one waiting record. */
+export interface SendState {
+  readonly recordId: string;
+  /** The sealed batch it travels in, while that batch waits for an answer. */
+  readonly batchId?: string;
+  readonly attempts: number;
+  readonly lastAttemptAt?: string;
+  readonly lastError?: string;
+  /** The server refused the record (it stays here, with the reason, and is not sent again by itself). */
+  readonly rejected?: { readonly reason: string; readonly at: string };
+}
+
+/** A waiting record with its send state, for the Outbox screen. */
+export interface OutboxItem {
+  readonly entry: OutboxEntry;
+  readonly send: SendState | null;
+}
+
+/** The server's answer for one record of a batch. */
+export interface RecordAnswer {
+  readonly id: string;
+  readonly acknowledged: boolean;
+  readonly reason?: string;
+}
+
 export type StoreHealth =
   | { readonly state: 'new'; readonly createdAt: string }
   | { readonly state: 'ok'; readonly createdAt: string }
@@ -155,6 +196,33 @@ export interface Store {
   seamFile(seamId: string): Promise<SeamFile | undefined>;
   outboxCount(): Promise<number>;
   outboxEntries(limit?: number): Promise<OutboxEntry[]>;
+  /** Waiting records with how sending went for each, oldest first. */
+  outboxItems(): Promise<OutboxItem[]>;
+  /** Waiting records in no sealed batch and not refused by the server, oldest first: what the next batch takes. */
+  unsealedEntries(limit: number): Promise<OutboxEntry[]>;
+  /** Reserves the next batch number. */
+  nextBatchSeq(): Promise<number>;
+  /**
+   * Keeps a batch sealed from waiting records. Returns false (and keeps nothing) when any of its records has
+   * meanwhile left the outbox or joined another batch: such a batch was never sent and is simply dropped.
+   */
+  keepSealedBatch(batch: Omit<SealedBatchRecord, 'attempts' | 'sealedAt'>): Promise<boolean>;
+  /** Sealed batches still waiting for answers, in the order they were sealed. */
+  pendingBatches(): Promise<SealedBatchRecord[]>;
+  /** Notes a send attempt of a batch (and of each of its records), with its error when it failed. */
+  noteAttempt(batchId: string, error: string | null): Promise<void>;
+  /**
+   * Applies the server's answers: acknowledged records leave the outbox, refused ones stay with their reason;
+   * the batch is dropped once every one of its records is answered. Returns how many records left the outbox.
+   */
+  settleBatch(batchId: string, answers: readonly RecordAnswer[]): Promise<number>;
+  /**
+   * Gives up a batch that was never accepted and never will be (signed by a key the server refuses since the
+   * device enrolled again): its records stay in the outbox and go into new batches.
+   */
+  releaseBatch(batchId: string): Promise<void>;
+  /** Takes acknowledged records out of the outbox (and nothing else: readings stay). Returns how many left. */
+  acknowledge(recordIds: readonly string[]): Promise<number>;
   exportBackup(): Promise<BackupFile>;
   importBackup(data: unknown): Promise<ImportReport>;
   /** Stores the demo yard in the 'demo' namespace; returns how many demo seams were added (0 when already loaded). */

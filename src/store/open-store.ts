@@ -9,6 +9,7 @@ import { uuidv7 } from './ids.js';
 import { appendReading } from './reading-writes.js';
 import * as reads from './reads.js';
 import { DEFAULT_DB_NAME } from './schema.js';
+import * as sendLog from './send-log.js';
 import { answerChecklist, saveSeam, setSummary, startRound } from './seam-writes.js';
 
 export interface OpenStoreOptions {
@@ -52,6 +53,15 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     seamFile: (seamId) => reads.seamFile(ctx, seamId),
     outboxCount: () => reads.outboxCount(ctx),
     outboxEntries: (limit) => reads.outboxEntries(ctx, limit),
+    outboxItems: () => sendLog.outboxItems(ctx),
+    unsealedEntries: (limit) => sendLog.unsealedEntries(ctx, limit),
+    nextBatchSeq: () => sendLog.nextBatchSeq(ctx),
+    keepSealedBatch: (batch) => sendLog.keepSealedBatch(ctx, batch),
+    pendingBatches: () => sendLog.pendingBatches(ctx),
+    noteAttempt: (batchId, error) => sendLog.noteAttempt(ctx, batchId, error),
+    settleBatch: (batchId, answers) => sendLog.settleBatch(ctx, batchId, answers),
+    releaseBatch: (batchId) => sendLog.releaseBatch(ctx, batchId),
+    acknowledge: (recordIds) => sendLog.acknowledge(ctx, recordIds),
     exportBackup: () => exportBackup(ctx),
     importBackup: (data) => importBackup(ctx, data),
     loadDemo: () => loadDemo(ctx),

@@ -1,14 +1,24 @@
 // The shape of the IndexedDB database and the steps that bring any older shape up to it. A database made by an
 // older app version is upgraded in place: migrations only add and back-fill, they never drop data.
 import type { DBSchema, IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
-import type { Namespace, OutboxEntry, ReadingRecord, RoundRecord, SeamRecord } from './api.js';
+import type {
+  Namespace,
+  OutboxEntry,
+  ReadingRecord,
+  RoundRecord,
+  SealedBatchRecord,
+  SeamRecord,
+  SendState,
+} from './api.js';
 
 export const DEFAULT_DB_NAME = 'beadbook';
 
 /** Small values kept beside the records: when this database was made, and the last local sequence number. */
 export type MetaRecord =
   | { readonly key: 'created'; readonly createdAt: string }
-  | { readonly key: 'localSeq'; readonly value: number };
+  | { readonly key: 'localSeq'; readonly value: number }
+  /** The last batch number this device sealed (version 3). */
+  | { readonly key: 'batchSeq'; readonly value: number };
 
 export interface BeadbookDB extends DBSchema {
   meta: { key: MetaRecord['key']; value: MetaRecord };
@@ -31,6 +41,10 @@ export interface BeadbookDB extends DBSchema {
   };
   /** What waits for the server, in the order it was made on this device. */
   outbox: { key: number; value: OutboxEntry; indexes: { byRecord: string } };
+  /** Batches sealed and not yet answered in full, kept to be resent byte for byte (version 3). */
+  batches: { key: string; value: SealedBatchRecord; indexes: { byDeviceSeq: number } };
+  /** How sending went for each waiting record: its batch, attempts, last error, rejection (version 3). */
+  sendLog: { key: string; value: SendState };
 }
 
 export type UpgradeTransaction = IDBPTransaction<BeadbookDB, StoreNames<BeadbookDB>[], 'versionchange'>;
@@ -81,8 +95,19 @@ async function version2(_db: IDBPDatabase<BeadbookDB>, tx: UpgradeTransaction): 
   await tx.objectStore('meta').put({ key: 'localSeq', value: old.length });
 }
 
+/**
+ * Version 3: the sender's bookkeeping beside the outbox, which itself stays as it is (entries are immutable and
+ * leave it only when acknowledged): sealed batches, and a send log per waiting record.
+ */
+function version3(db: IDBPDatabase<BeadbookDB>): void {
+  db.createObjectStore('batches', { keyPath: 'batchId' }).createIndex('byDeviceSeq', 'deviceSeq', {
+    unique: true,
+  });
+  db.createObjectStore('sendLog', { keyPath: 'recordId' });
+}
+
 /** MIGRATIONS[n - 1] brings a database from version n - 1 to version n. Append only; never edit a shipped step. */
-export const MIGRATIONS: readonly Migration[] = [version1, version2];
+export const MIGRATIONS: readonly Migration[] = [version1, version2, version3];
 export const DB_VERSION = MIGRATIONS.length;
 
 /**

@@ -5,6 +5,7 @@ import { ExaminerSettings } from '../components/ExaminerSettings.js';
 // Version, offline readiness and storage protection (with the button to ask the browser to keep the data).
 import { AboutPanel } from '../pwa/AboutPanel.js';
 import { InstallHint } from '../pwa/InstallHint.js';
+import { hrefOf } from '../router.js';
 import { getStore } from '../services/store.js';
 
 const errorText = (e: unknown) => (e instanceof Error ? e.message : String(e));
@@ -190,6 +191,16 @@ export default function SettingsScreen() {
       <h1 id="settings-title">Settings</h1>
       <div class="panel">
         <ExaminerSettings />
+      </div>
+      <div class="panel">
+        <h2>Sending to the yard server</h2>
+        <p>
+          Enrol this tablet and see what waits to be sent on the{' '}
+          <a class="button" href={hrefOf({ name: 'outbox' })}>
+            Outbox
+          </a>{' '}
+          screen.
+        </p>
       </div>
       <InstallHint />
       <AboutPanel />

@@ -1,0 +1,47 @@
+// The page's one sync client: the device vault, and the outbox sender woken on app start, on the `online` event,
+// from "Send now", and by a gentle check while the page is open (so readings saved in range go soon). Tabs share
+// one sender at a time through Web Locks where the browser has them.
+import { openDeviceVault, type DeviceVault } from '../sync/device-vault.js';
+import { OutboxSender } from '../sync/sender.js';
+import { fetchTransport } from '../sync/transport.js';
+import { getStore } from './store.js';
+
+export interface SyncClient {
+  readonly vault: DeviceVault;
+  readonly sender: OutboxSender;
+}
+
+/** How often an idle sender looks for new records while the page is open. */
+const CHECK_EVERY_MS = 30_000;
+
+let client: Promise<SyncClient> | null = null;
+
+function exclusive<T>(pass: () => Promise<T>): Promise<T> {
+  const locks = (navigator as Navigator & { locks?: LockManager }).locks;
+  return locks ? (locks.request('beadbook-outbox-sender', pass) as Promise<T>) : pass();
+}
+
+export function getSync(): Promise<SyncClient> {
+  client ??= getStore().then((store) => {
+    const vault = openDeviceVault();
+    const sender = new OutboxSender({ store, vault, transport: fetchTransport, exclusive });
+    return { vault, sender };
+  });
+  return client;
+}
+
+/** Starts sending in the background; called once from main.tsx. Never throws. */
+export function startSync(): void {
+  getSync()
+    .then(({ sender }) => {
+      void sender.sendNow();
+      addEventListener('online', () => void sender.sendNow());
+      setInterval(() => {
+        // A sender waiting out its backoff keeps waiting; an idle one looks for new records.
+        if (sender.status.state === 'idle' && navigator.onLine) void sender.sendNow();
+      }, CHECK_EVERY_MS);
+    })
+    .catch(() => {
+      // The store could not be opened: the health banner says so; nothing can be sent until it opens.
+    });
+}
