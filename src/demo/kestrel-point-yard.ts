@@ -102,6 +102,18 @@ function deckSplice(): SeamFile {
       procedure: 'WPS-KP-135-07',
       weldedAt: '2026-11-18T14:05:00Z',
       acceptance: { edition: 'ISO 5817:2014', preset: 'EXC2' },
+      // Invented design data, so the demo shows km, the fatigue-class flag and a life figure.
+      fatigue: {
+        loaded: true,
+        requiredFat: 71,
+        designStressRange: 45,
+        cycles: 2_000_000,
+        membraneStress: 60,
+        restraint: 'pinned',
+        freeLength1: 300,
+        freeLength2: 300,
+        ndt: true,
+      },
     },
     [
       {
@@ -145,6 +157,25 @@ function deckSplice(): SeamFile {
         supersedes: `${id}-r04`,
       },
       { round: 1, position: 1050, toe: face1, values: { toeAngle: 155 }, recordedAt: '2026-11-19T08:41:00Z' },
+      // More positions at the pitch, so the sampling statistics have something to settle on.
+      { round: 1, position: 300, toe: face1, values: { toeAngle: 160 }, recordedAt: '2026-11-19T08:44:00Z' },
+      { round: 1, position: 450, toe: face1, values: { toeAngle: 157 }, recordedAt: '2026-11-19T08:46:00Z' },
+      { round: 1, position: 750, toe: face1, values: { toeAngle: 159 }, recordedAt: '2026-11-19T08:48:00Z' },
+      { round: 1, position: 900, toe: face1, values: { toeAngle: 156 }, recordedAt: '2026-11-19T08:50:00Z' },
+      {
+        round: 1,
+        position: 300,
+        values: { linearMisalignment: 0.4 },
+        instrument: INSTRUMENTS.misalignment,
+        recordedAt: '2026-11-19T08:52:00Z',
+      },
+      {
+        round: 1,
+        position: 900,
+        values: { linearMisalignment: 0.5 },
+        instrument: INSTRUMENTS.misalignment,
+        recordedAt: '2026-11-19T08:54:00Z',
+      },
     ],
   );
 }

@@ -10,6 +10,7 @@ import {
   KM_COVERED_LOCAL,
   kmAngular,
   kmAngularLongArms,
+  kmAxialCruciform,
   kmAxialFlat,
   kmAxialThicknessStep,
   kmEffective,
@@ -52,6 +53,12 @@ describe('linear misalignment', () => {
   it('a gauge reading the face-surface step of plates 10 and 12 mm: 2.0 mm read is a 1.0 mm mid-plane offset (§2.2 note, derived)', () => {
     expect(midPlaneOffset(2, 'faceSurface', 10, 12)).toBeCloseTo(1, 12);
     expect(midPlaneOffset(0, 'rootSurface', 10, 12)).toBeCloseTo(1, 12);
+  });
+
+  it('cruciform toe crack, λ = 6 (reference §2.3, recalled, low confidence): e = 1, t = 10, equal arms → 1.3000; l1 = 100, l2 = 300 → 1.15 / 1.45', () => {
+    expect(kmAxialCruciform(1, 10, 100, 100, 100)).toBeCloseTo(1.3, 10);
+    expect(kmAxialCruciform(1, 10, 100, 100, 300)).toBeCloseTo(1.15, 10);
+    expect(kmAxialCruciform(-1, 10, 300, 100, 300)).toBeCloseTo(1.45, 10);
   });
 
   it('the sign of e does not change km (|e| enters)', () => {

@@ -1,6 +1,5 @@
 // Drawn by hand in SVG, no chart library: a few hundred lines of SVG are smaller than any chart library this
 // offline app would have to precache, and the later charts (misalignment, fatigue) reuse this one.
-import { useCallback, useEffect, useRef, useState } from 'preact/hooks';
 import { levelText, type ReadingGrade } from '../../domain/index.js';
 import { fmtNumber, fmtValue } from './format.js';
 import {
@@ -10,6 +9,7 @@ import {
   type PlacedPoint,
   type StripLane,
 } from './strip-layout.js';
+import { useWidth } from './use-width.js';
 
 export interface StripChartProps {
   readonly readings: readonly ReadingGrade[];
@@ -31,25 +31,6 @@ export function tableRows(lanes: readonly StripLane[]): {
   if (all.length <= TABLE_ROWS_ALL) return { rows: all, left: 0 };
   const rows = all.filter((r) => !r.point.meetsRequired || r.point.borderline);
   return { rows, left: all.length - rows.length };
-}
-
-/** The drawn width follows the container, so text stays legible on a phone instead of being scaled down. */
-function useWidth(): [(el: HTMLElement | null) => void, number] {
-  const [width, setWidth] = useState(720);
-  const observer = useRef<ResizeObserver | null>(null);
-  const ref = useCallback((el: HTMLElement | null) => {
-    observer.current?.disconnect();
-    observer.current = null;
-    if (!el) return;
-    setWidth(el.clientWidth || 720);
-    observer.current = new ResizeObserver((entries) => {
-      const w = entries[0]?.contentRect.width;
-      if (w) setWidth(Math.round(w));
-    });
-    observer.current.observe(el);
-  }, []);
-  useEffect(() => () => observer.current?.disconnect(), []);
-  return [ref, width];
 }
 
 /** The summary a screen reader hears in place of the picture. */

@@ -1,10 +1,18 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
-import type { ChecklistItem, Problem, RoundGrade, SeamGrade } from '../../domain/index.js';
+import type {
+  ChecklistItem,
+  DetailId,
+  Problem,
+  RoundGrade,
+  SeamAssessment,
+  SeamGrade,
+} from '../../domain/index.js';
 import type { ChecklistAnswer, ReadingRecord, RoundRecord, SeamRecord } from '../../store/api.js';
 import { ChecklistPanel } from '../components/ChecklistPanel.js';
 import { fmtLevel, fmtWhen, ROUND_KIND_LABEL } from '../components/format.js';
 import { GradePanel } from '../components/GradePanel.js';
 import { ImperfectionTable } from '../components/ImperfectionTable.js';
+import { Lazy } from '../components/Lazy.js';
 import { ReadingList } from '../components/ReadingList.js';
 import { SetupSummary } from '../components/SetupSummary.js';
 import { StripChart } from '../components/StripChart.js';
@@ -13,7 +21,11 @@ import { hrefOf } from '../router.js';
 import { gradeInWorker } from '../services/grading.js';
 import { getStore } from '../services/store.js';
 
-type Graded = { ok: true; grade: SeamGrade } | { ok: false; problems: Problem[] } | null;
+type Graded =
+  { ok: true; grade: SeamGrade; assessment: SeamAssessment } | { ok: false; problems: Problem[] } | null;
+
+// The assessment panel carries the charts and the fatigue catalogue: loaded after the seam's grade shows.
+const loadAssessment = () => import('../components/AssessmentPanel.js');
 
 interface Loaded {
   readonly rec: SeamRecord;
@@ -207,6 +219,20 @@ export default function SeamScreen({ id }: { readonly id: string }) {
     void regrade().catch((e: unknown) => setError(errorText(e)));
   };
 
+  /** Saves an engineer's choice of fatigue detail (or clears it) with the seam's set-up, then grades again. */
+  const overrideDetail = async (detail: DetailId | null) => {
+    if (!seam.fatigue) return;
+    const fatigue = { ...seam.fatigue };
+    delete fatigue.detailOverride;
+    const store = await getStore();
+    const saved = await store.saveSeam({
+      ...seam,
+      fatigue: detail ? { ...fatigue, detailOverride: detail } : fatigue,
+    });
+    setData((d) => (typeof d === 'object' ? { ...d, rec: saved } : d));
+    await regrade();
+  };
+
   const startRound = async () => {
     const store = await getStore();
     const round = await store.startRound(id, 'afterRepair');
@@ -270,6 +296,17 @@ export default function SeamScreen({ id }: { readonly id: string }) {
           </a>
         </section>
       </div>
+
+      {graded?.ok ? (
+        <Lazy
+          load={loadAssessment}
+          props={{
+            assessment: graded.assessment,
+            seamLength: seam.length,
+            ...(seam.fatigue ? { onOverride: overrideDetail } : {}),
+          }}
+        />
+      ) : null}
 
       <section class="panel" aria-labelledby="rounds-title">
         <h2 id="rounds-title">Rounds</h2>
