@@ -8,6 +8,7 @@ import {
   type PrecacheEntry,
 } from 'workbox-precaching';
 import { NavigationRoute, registerRoute } from 'workbox-routing';
+import { OUTBOX_SYNC_TAG, sendOnceInBackground } from './app/sync/background-send.js';
 import { isPageToWorker, type VersionReply } from './sw-protocol.js';
 
 declare const self: ServiceWorkerGlobalScope & { readonly __WB_MANIFEST: (string | PrecacheEntry)[] };
@@ -47,4 +48,21 @@ self.addEventListener('message', (event) => {
 // skipWaiting (the user accepted) or once no page is open, so claiming never swaps files under a running page.
 self.addEventListener('activate', (event) => {
   event.waitUntil(self.clients.claim());
+});
+
+/** Background Sync's event (not in TypeScript's WebWorker library). */
+interface SyncEventLike extends ExtendableEvent {
+  readonly tag: string;
+}
+
+// The page registers this when records wait (src/app/services/sync.ts); the browser fires it once online, even
+// with no page open. A pass that leaves records waiting rejects, so the browser tries again later.
+self.addEventListener('sync', (event) => {
+  const sync = event as SyncEventLike;
+  if (sync.tag !== OUTBOX_SYNC_TAG) return;
+  sync.waitUntil(
+    sendOnceInBackground().then(({ sent, status }) => {
+      if (!sent) throw new Error(`records still wait: ${status.lastError ?? 'no answer'}`);
+    }),
+  );
 });

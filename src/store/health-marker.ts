@@ -5,10 +5,17 @@
 
 const markerKey = (dbName: string) => `beadbook.store.${dbName}.createdAt`;
 
-function storage(): Storage | undefined {
+/** The part of localStorage used here; typed without the DOM library so the service worker can open the store. */
+interface NoteStorage {
+  getItem(key: string): string | null;
+  setItem(key: string, value: string): void;
+}
+
+function storage(): NoteStorage | undefined {
   try {
     // Reading the property itself throws in some privacy modes, so it is inside the try.
-    return 'localStorage' in globalThis ? (globalThis.localStorage as Storage | undefined) : undefined;
+    const g = globalThis as { localStorage?: NoteStorage };
+    return 'localStorage' in g ? g.localStorage : undefined;
   } catch {
     return undefined;
   }

@@ -4,7 +4,7 @@
 // them by itself (F3 in ../shared/reliability.md). The server then holds exactly those records, each in a batch
 // whose signature verifies with the key the device enrolled (design notes §4; RFC 7515 flattened JWS, ES256).
 import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
+import type { BrowserContext } from 'playwright-core';
 import { parseFlattenedJws, toPublicJwk, verifyJws } from '../../src/protocol/index.js';
 import {
   collectPageErrors,
@@ -14,8 +14,9 @@ import {
   removeProfileDir,
 } from './support/chromium.js';
 import { appHeader, waitForController } from './support/vitest/app-page.js';
-import { createSeam, openGaugeWithToeGauge, saveToeAngle, textbox } from './support/vitest/app-flows.js';
+import { createSeam, openGaugeWithToeGauge, saveToeAngle } from './support/vitest/app-flows.js';
 import { startYardServer, type YardServer } from './support/vitest/yard-server.js';
+import { enrol, localRecords, serverRecords } from './support/vitest/sync-flows.js';
 
 const { current } = inject('e2eBuilds');
 
@@ -31,58 +32,6 @@ afterEach(async () => {
   server = undefined;
   profile = undefined;
 });
-
-interface LocalRecord {
-  readonly recordId: string;
-  readonly kind: string;
-}
-
-/** The app's outbox and reading ids straight from IndexedDB. */
-function localRecords(page: Page): Promise<{ outbox: LocalRecord[]; readings: string[] }> {
-  return page.evaluate(
-    () =>
-      new Promise<{ outbox: LocalRecord[]; readings: string[] }>((resolve, reject) => {
-        const open = indexedDB.open('beadbook');
-        open.onerror = () => reject(open.error ?? new Error('open failed'));
-        open.onsuccess = () => {
-          const db = open.result;
-          const tx = db.transaction(['outbox', 'readings'], 'readonly');
-          const outbox = tx.objectStore('outbox').getAll();
-          const readings = tx.objectStore('readings').getAllKeys();
-          tx.oncomplete = () => {
-            db.close();
-            resolve({
-              outbox: (outbox.result as LocalRecord[]).map((e) => ({ recordId: e.recordId, kind: e.kind })),
-              readings: readings.result.map(String),
-            });
-          };
-          tx.onerror = () => reject(tx.error ?? new Error('read failed'));
-        };
-      }),
-  );
-}
-
-interface ServerRecord {
-  readonly id: string;
-  readonly kind: string;
-  readonly deviceKid: string | null;
-  readonly batchId: string | null;
-}
-
-const serverRecords = async (yard: YardServer): Promise<ServerRecord[]> =>
-  (await (await yard.admin('GET', '/records')).json()) as ServerRecord[];
-
-async function enrol(page: Page, yard: YardServer): Promise<void> {
-  const res = await yard.admin('POST', '/enrolment-codes');
-  expect(res.status).toBe(201);
-  const { code } = (await res.json()) as { code: string };
-  await page.getByRole('navigation', { name: 'Screens' }).getByRole('link', { name: 'Outbox' }).click();
-  await page.getByRole('heading', { level: 1, name: 'Outbox' }).waitFor();
-  await textbox(page, 'Enrolment code').fill(code.toLowerCase());
-  await textbox(page, 'Name for this tablet (optional)').fill('Bay 3 tablet');
-  await page.getByRole('button', { name: 'Enrol this tablet' }).click();
-  await page.locator('[data-enrolled="yes"]').waitFor();
-}
 
 describe('signed sync from the tablet', () => {
   it('enrols, records offline, survives a browser restart and sends exactly those records once online', async () => {

@@ -2,7 +2,8 @@
 // from "Send now", and by a gentle check while the page is open (so readings saved in range go soon). Tabs share
 // one sender at a time through Web Locks where the browser has them.
 import { openDeviceVault, type DeviceVault } from '../sync/device-vault.js';
-import { OutboxSender } from '../sync/sender.js';
+import { exclusiveSend, OUTBOX_SYNC_TAG } from '../sync/background-send.js';
+import { OutboxSender, type SenderStatus } from '../sync/sender.js';
 import { fetchTransport } from '../sync/transport.js';
 import { getStore } from './store.js';
 
@@ -16,15 +17,31 @@ const CHECK_EVERY_MS = 30_000;
 
 let client: Promise<SyncClient> | null = null;
 
-function exclusive<T>(pass: () => Promise<T>): Promise<T> {
-  const locks = (navigator as Navigator & { locks?: LockManager }).locks;
-  return locks ? (locks.request('beadbook-outbox-sender', pass) as Promise<T>) : pass();
+interface SyncManagerLike {
+  register(tag: string): Promise<void>;
 }
+
+/**
+ * Asks the browser for a Background Sync (where it has one): once the device is online again it wakes the
+ * service worker, which sends even when no Beadbook page is open. Failing to register only loses that wake-up;
+ * the page still sends on start, on `online` and from "Send now".
+ */
+export function requestBackgroundSend(): void {
+  if (!('serviceWorker' in navigator)) return;
+  void navigator.serviceWorker.ready
+    .then((registration) => {
+      const sync = (registration as ServiceWorkerRegistration & { sync?: SyncManagerLike }).sync;
+      return sync?.register(OUTBOX_SYNC_TAG);
+    })
+    .catch(() => undefined);
+}
+
+const stillWaiting = (status: SenderStatus) => status.state === 'waiting';
 
 export function getSync(): Promise<SyncClient> {
   client ??= getStore().then((store) => {
     const vault = openDeviceVault();
-    const sender = new OutboxSender({ store, vault, transport: fetchTransport, exclusive });
+    const sender = new OutboxSender({ store, vault, transport: fetchTransport, exclusive: exclusiveSend });
     return { vault, sender };
   });
   return client;
@@ -36,6 +53,11 @@ export function startSync(): void {
     .then(({ sender }) => {
       void sender.sendNow();
       addEventListener('online', () => void sender.sendNow());
+      // Records that could not go now wait for the browser's sync event too, in case every tab is closed first.
+      sender.subscribe((status) => {
+        if (stillWaiting(status)) requestBackgroundSend();
+      });
+      addEventListener('offline', requestBackgroundSend);
       setInterval(() => {
         // A sender waiting out its backoff keeps waiting; an idle one looks for new records.
         if (sender.status.state === 'idle' && navigator.onLine) void sender.sendNow();
