@@ -85,11 +85,15 @@ describe('installability', () => {
   it('is controlled by an activated service worker (sw.js)', async () => {
     const scriptUrl = await waitForController(page);
     expect(scriptUrl).toBe(`${server.origin}/sw.js`);
-    const registration = await page.evaluate(async () => {
-      const reg = await navigator.serviceWorker.ready;
-      return { scope: reg.scope, active: reg.active?.state ?? null, waiting: reg.waiting !== null };
-    });
-    expect(registration).toEqual({ scope: `${server.origin}/`, active: 'activated', waiting: false });
+    // The worker claims the page during its activate event, so control comes a moment before 'activated'.
+    const registration = () =>
+      page.evaluate(async () => {
+        const reg = await navigator.serviceWorker.ready;
+        return { scope: reg.scope, active: reg.active?.state ?? null, waiting: reg.waiting !== null };
+      });
+    await expect
+      .poll(registration)
+      .toEqual({ scope: `${server.origin}/`, active: 'activated', waiting: false });
   });
 
   it('has no installability errors in Chromium’s own check', async () => {
