@@ -1,7 +1,6 @@
 import { render } from 'preact';
 import { App } from './App.js';
 import { startPwa } from './pwa/start.js';
-import { startSync } from './services/sync.js';
 import './shell.css';
 
 const root = document.getElementById('app');
@@ -9,5 +8,6 @@ const root = document.getElementById('app');
 if (root) render(<App />, root);
 // Service worker and update notice (own render root, above #app).
 startPwa();
-// Sends what waits in the outbox once the device is enrolled; wakes again on the \`online\` event.
-startSync();
+// Sends what waits in the outbox once the device is enrolled; wakes again on the `online` event. Loaded after the
+// first render: the signing code (jose) and the sender are not needed to paint the Seams screen.
+void import('./services/sync.js').then((sync) => sync.startSync());
