@@ -90,7 +90,9 @@ describe('fatigue-class flag (misalignment reference §3: FAT equivalent = FAT �
     const fat = viewOf(seamFile(siteButt({ loaded: true, requiredFat: 80 }), [midPlane(2, 100)])).fat;
     expect(fat.flag).toBe('below');
     expect(fat.symbol).toBe('✗');
-    expect(fat.numbers).toBe('FAT equivalent 65 MPa against the required 80 MPa (fatigue.requiredFat)');
+    expect(fat.numbers).toBe(
+      'FAT equivalent 65 MPa against the required 80 MPa (the required class in the seam set-up)',
+    );
   });
 
   it('not assessable: names the missing input and still shows the class the seam earns, with a ?', () => {

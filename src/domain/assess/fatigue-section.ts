@@ -175,7 +175,7 @@ export function fatigueSection(
   }
   const requiredFat =
     f?.requiredFat !== undefined
-      ? { value: f.requiredFat, basis: 'fatigue.requiredFat' }
+      ? { value: f.requiredFat, basis: 'the required class in the seam set-up' }
       : choice.designId !== null
         ? {
             value: DETAILS[choice.designId].fat[setup.material],
