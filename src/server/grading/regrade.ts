@@ -2,7 +2,13 @@
 // its result beside the grade the device reported: a review never rests on a device's arithmetic. Readings that
 // do not fit their seam (a value that does not apply to the joint, a round not received yet) are left out of the
 // grade and listed with the grader's reason; the records themselves stay stored.
-import { gradeSeam, parseSeamFile, type Problem, type Reading, type SeamFile } from '../../domain/index.js';
+import {
+  gradeSeam,
+  parseSeamFileWithCheckedReadings,
+  type Problem,
+  type Reading,
+  type SeamFile,
+} from '../../domain/index.js';
 import type { Logger } from '../log.js';
 import type { ServerGrade, Storage } from '../storage/types.js';
 import { foldSeam, seamFileOf, type LeftOut } from './fold.js';
@@ -52,11 +58,11 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
   let kept = folded.readings;
   let file: SeamFile | null = null;
   for (let pass = 0; pass < MAX_PASSES && !file; pass++) {
-    const parsed = parseSeamFile(
-      seamFileOf(
-        folded,
-        kept.map((r) => r.reading),
-      ),
+    // Stored readings passed the reading schema when they arrived (judgeRecord); what is left to check here is
+    // how they fit their seam and each other.
+    const parsed = parseSeamFileWithCheckedReadings(
+      seamFileOf(folded, []),
+      kept.map((r) => r.reading),
       { allowNoReadings: true },
     );
     if (parsed.ok) {
