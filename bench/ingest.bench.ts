@@ -23,6 +23,7 @@ import {
   type OutboxEntryLike,
 } from '../src/protocol/index.js';
 import { createApp, type BeadbookApp } from '../src/server/app.js';
+import type { RegradeStage } from '../src/server/grading/regrade.js';
 import { tokenHash } from '../src/server/auth/tokens.js';
 import { testConfig } from '../src/server/config.js';
 import { createLogger } from '../src/server/log.js';
@@ -36,6 +37,7 @@ import {
   type SyncDeps,
 } from '../src/server/sync/ingest.js';
 
+const REGRADE_STAGES: readonly RegradeStage[] = ['read', 'fold', 'check', 'grade', 'save'];
 const BATCH = 500;
 const BATCHES = 20;
 const WARMUP = 2;
@@ -179,6 +181,10 @@ async function ingestBench() {
     other: [] as number[],
     regrade: [] as number[],
   };
+  const regradeStages = Object.fromEntries(REGRADE_STAGES.map((s) => [s, [] as number[]])) as Record<
+    RegradeStage,
+    number[]
+  >;
   const ingest: number[] = [];
   const rawMs: number[] = [];
   const ingestCpu: number[] = [];
@@ -218,7 +224,8 @@ async function ingestBench() {
     const t3 = performance.now();
     const reply = await ingestBatch(deps, sealed.body, (stage, ms) => (lap[stage] = ms));
     const t4 = performance.now();
-    await built.deps.regrader.regrade(seamId);
+    const regradeLap: Partial<Record<RegradeStage, number>> = {};
+    await built.deps.regrader.regrade(seamId, (stage, ms) => (regradeLap[stage] = ms));
     const t5 = performance.now();
     const c5 = process.cpuUsage(c3);
     if (reply.results.some((r) => r.status !== 'accepted')) throw new Error('bench batch was not accepted');
@@ -240,6 +247,7 @@ async function ingestBench() {
     stages.store.push(lap.store ?? 0);
     stages.other.push(t4 - t3 - (lap.parseVerify ?? 0) - (lap.validate ?? 0) - (lap.store ?? 0));
     stages.regrade.push(t5 - t4);
+    for (const stage of REGRADE_STAGES) regradeStages[stage].push(regradeLap[stage] ?? 0);
     ingest.push(t5 - t3);
     rawMs.push(t7 - t6);
     ingestCpu.push((c5.user + c5.system) / 1000);
@@ -273,6 +281,9 @@ async function ingestBench() {
       regrade: share(stages.regrade),
     },
     msPerStage: Object.fromEntries(Object.entries(stages).map(([k, v]) => [k, round(median(v))])),
+    // Within regrade: read = the seam's records from storage; fold = parse their bodies into the seam's state;
+    // check = cross-field checks of the readings against their seam; grade = gradeSeam (columns); save = the grade.
+    regradeMs: Object.fromEntries(REGRADE_STAGES.map((k) => [k, round(median(regradeStages[k]))])),
   };
 }
 

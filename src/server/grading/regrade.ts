@@ -35,11 +35,19 @@ export interface GradeSummary {
 const MAX_PASSES = 4;
 const READING_PATH = /^readings\[(\d+)\]/;
 
-export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
+/** The stages of a re-grade, for `npm run bench:ingest` to say where the time goes. */
+export type RegradeStage = 'read' | 'fold' | 'check' | 'grade' | 'save';
+export type StageTimer = (stage: RegradeStage) => void;
+
+export function gradeFolded(
+  material: Parameters<typeof foldSeam>[0],
+  lap: StageTimer = () => {},
+): {
   basedOn: number;
   summary: GradeSummary;
 } {
   const folded = foldSeam(material);
+  lap('fold');
   const empty = {
     levelMet: null,
     meetsRequired: null,
@@ -106,8 +114,10 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
       },
     };
   }
+  lap('check');
   const grade = gradeSeam(file, undefined, { readings: 'columns' });
   const readingCount = file.readings.filter((r: Reading) => !r.withdrawn).length;
+  lap('grade');
   return {
     basedOn: folded.basedOn,
     summary: {
@@ -174,9 +184,17 @@ export class Regrader {
     }
   }
 
-  async regrade(seamId: string): Promise<ServerGrade> {
+  async regrade(seamId: string, timed?: (stage: RegradeStage, ms: number) => void): Promise<ServerGrade> {
+    let mark = timed ? performance.now() : 0;
+    const lap: StageTimer = (stage) => {
+      if (!timed) return;
+      const t = performance.now();
+      timed(stage, t - mark);
+      mark = t;
+    };
     const material = await this.storage.seamMaterial(seamId);
-    const { basedOn, summary } = gradeFolded(material);
+    lap('read');
+    const { basedOn, summary } = gradeFolded(material, lap);
     const grade: ServerGrade = {
       seamId,
       basedOn,
@@ -187,6 +205,7 @@ export class Regrader {
       summary: JSON.stringify(summary),
     };
     await this.storage.saveServerGrade(grade);
+    lap('save');
     return grade;
   }
 }

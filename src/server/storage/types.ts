@@ -105,6 +105,11 @@ export interface BatchPlan {
   readonly payloadSha256: string;
   /** The request body exactly as received (the JWS), kept for audit. */
   readonly jws: string;
+  /**
+   * The JWS payload member as it appears in jws, and the bytes it decodes to: a store may keep the bytes instead
+   * of the text, when they encode back to exactly that text.
+   */
+  readonly jwsPayload?: { readonly text: string; readonly bytes: Uint8Array };
   readonly receivedAt: string;
   readonly records: readonly PlannedRecord[];
   readonly deviceGrades: readonly { readonly seamId: string; readonly grade: string }[];

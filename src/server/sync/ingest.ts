@@ -11,14 +11,14 @@ import {
   PROTOCOL_VERSION,
   readProtectedHeader,
   type BatchReply,
-  type Verified,
+  type FlattenedJws,
 } from '../../protocol/index.js';
 import { isDemoId } from '../../demo/kestrel-point-yard.js';
 import { HttpError } from '../http/errors.js';
 import type { Logger } from '../log.js';
 import type { Device, PlannedRecord, Storage } from '../storage/types.js';
 import type { DeviceKeyCache } from './device-keys.js';
-import { verifyJwsNode } from './verify.js';
+import { verifyJwsNode, type VerifiedBytes } from './verify.js';
 import type { JwsKind } from '../../protocol/index.js';
 
 export interface SyncDeps {
@@ -45,7 +45,7 @@ export async function verifyDeviceRequest(
   deps: SyncDeps,
   bodyText: string,
   kind: JwsKind,
-): Promise<{ device: Device; verified: Verified }> {
+): Promise<{ device: Device; jws: FlattenedJws; verified: VerifiedBytes }> {
   const jws = parseFlattenedJws(parseBody(bodyText));
   const header = readProtectedHeader(jws, kind);
   const device = await deps.storage.getDevice(header.kid);
@@ -69,7 +69,7 @@ export async function verifyDeviceRequest(
   }
   const key = deps.deviceKeys.get(device.kid, device.publicJwk);
   try {
-    return { device, verified: verifyJwsNode(jws, kind, key) };
+    return { device, jws, verified: verifyJwsNode(jws, kind, key) };
   } catch (error) {
     deps.log.warn('security', { what: 'badSignature', kind, kid: device.kid });
     await deps.storage.recordSecurityEvent(
@@ -82,7 +82,7 @@ export async function verifyDeviceRequest(
   }
 }
 
-const sha256 = (text: string): string => createHash('sha256').update(text, 'utf8').digest('hex');
+const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes).digest('hex');
 
 /** Judges every record of a verified batch payload into what storage will hold. */
 export function planRecords(records: readonly unknown[]): PlannedRecord[] {
@@ -148,7 +148,7 @@ export async function ingestBatch(
     timed(stage, t - mark);
     mark = t;
   };
-  const { device, verified } = await verifyDeviceRequest(deps, bodyText, 'batch');
+  const { device, jws, verified } = await verifyDeviceRequest(deps, bodyText, 'batch');
   lap('parseVerify');
   const payload = parseBatchPayload(verified.payload);
   const planned = planRecords(payload.records);
@@ -158,8 +158,10 @@ export async function ingestBatch(
     batchId: payload.batchId,
     deviceKid: device.kid,
     deviceSeq: payload.deviceSeq,
-    payloadSha256: sha256(verified.payloadText),
+    // The payload's bytes are checked UTF-8, so this is the hash of payloadText's UTF-8 as well.
+    payloadSha256: sha256(verified.payloadBytes),
     jws: bodyText,
+    jwsPayload: { text: jws.payload, bytes: verified.payloadBytes },
     receivedAt,
     records: planned,
     deviceGrades: (payload.deviceGrades ?? []).map((g) => ({ seamId: g.seamId, grade: canonicalJson(g) })),
