@@ -165,7 +165,9 @@ async function ingestBench() {
     deviceKeys: built.deps.deviceKeys,
     log: quiet,
     now: () => new Date(),
+    // The server schedules the re-grade; here it is run and timed right after the ingest instead.
     regrade: () => {},
+    fresh: built.deps.regrader.fresh,
   };
 
   // The raw floor: the same table (same schema, indexes, pragmas) in a database of its own.

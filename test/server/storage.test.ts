@@ -461,6 +461,29 @@ function contract(name: string, make: () => Storage) {
       expect(await s.listSeamIds()).toEqual(['seam-1']);
       await s.close();
     });
+
+    it('gives the grade its material without the bodies it holds already, however few or many those are', async () => {
+      const s = make();
+      await withDevice(s);
+      const ids = Array.from({ length: 8 }, (_, i) => `r${i}`);
+      await s.applyBatch(
+        plan(
+          'b1',
+          ids.map((id, i) => valid(i, id)),
+        ),
+      );
+      const full = (await s.seamMaterial('seam-1')).records.map((r) => [r.id, r.receiveSeq, r.body]);
+      // Most held (bodies fetched one by one), none held, and some held (one scan).
+      for (const held of [new Set(ids.slice(1)), new Set<string>(), new Set(['r0', 'r5', 'nope'])]) {
+        const material = await s.gradeMaterial('seam-1', held);
+        expect(material.records.map((r) => [r.id, r.receiveSeq, r.body])).toEqual(
+          full.map(([id, seq, body]) => [id, seq, held.has(id as string) ? null : body]),
+        );
+        expect(material.records.every((r) => r.kind === 'reading' && r.deviceKid === KID_A)).toBe(true);
+        expect(material.records.map((r) => r.deviceSeq)).toEqual(ids.map((_, i) => i + 1));
+      }
+      await s.close();
+    });
   });
 }
 

@@ -12,6 +12,7 @@ import {
 import type { Logger } from '../log.js';
 import type { ServerGrade, Storage } from '../storage/types.js';
 import { foldSeam, seamFileOf, type LeftOut } from './fold.js';
+import { FreshReadings } from './fresh-readings.js';
 
 export interface GradeSummary {
   readonly state: 'graded' | 'incomplete' | 'noReadings' | 'noSetup' | 'noRounds' | 'invalid';
@@ -42,11 +43,12 @@ export type StageTimer = (stage: RegradeStage) => void;
 export function gradeFolded(
   material: Parameters<typeof foldSeam>[0],
   lap: StageTimer = () => {},
+  held?: ReadonlyMap<string, Reading>,
 ): {
   basedOn: number;
   summary: GradeSummary;
 } {
-  const folded = foldSeam(material);
+  const folded = foldSeam(material, held);
   lap('fold');
   const empty = {
     levelMet: null,
@@ -146,6 +148,8 @@ export function gradeFolded(
  */
 export class Regrader {
   readonly #pending = new Set<string>();
+  /** Readings the ingest stored just now, for the next re-grade of their seam (see FreshReadings). */
+  readonly fresh = new FreshReadings();
   #running: Promise<void> | null = null;
 
   constructor(
@@ -192,9 +196,10 @@ export class Regrader {
       timed(stage, t - mark);
       mark = t;
     };
-    const material = await this.storage.seamMaterial(seamId);
+    const held = this.fresh.take(seamId);
+    const material = await this.storage.gradeMaterial(seamId, new Set(held.keys()));
     lap('read');
-    const { basedOn, summary } = gradeFolded(material, lap);
+    const { basedOn, summary } = gradeFolded(material, lap, held);
     const grade: ServerGrade = {
       seamId,
       basedOn,

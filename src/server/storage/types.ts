@@ -166,6 +166,21 @@ export interface SeamMaterial {
   readonly records: readonly StoredRecord[];
 }
 
+/** A record as the grade folds it; body is null for a record the caller said it holds already. */
+export interface GradeRecord {
+  readonly receiveSeq: number;
+  readonly id: string;
+  readonly kind: string;
+  readonly deviceKid: string | null;
+  readonly deviceSeq: number;
+  readonly body: string | null;
+}
+
+export interface GradeMaterial {
+  readonly seam: SeamRow | undefined;
+  readonly records: readonly GradeRecord[];
+}
+
 export interface ServerGrade {
   readonly seamId: string;
   /** The newest receive sequence number folded in: an older grade never overwrites a newer one. */
@@ -277,6 +292,11 @@ export interface Storage {
   listSeamIds(): Promise<string[]>;
   /** What a grade is computed from: the seam's set-up given on the server, and every record of the seam. */
   seamMaterial(seamId: string): Promise<SeamMaterial>;
+  /**
+   * seamMaterial as the re-grade needs it: the bodies of the records named in bodiesHeld (which the caller holds
+   * parsed already) may be left out, as null.
+   */
+  gradeMaterial(seamId: string, bodiesHeld: ReadonlySet<string>): Promise<GradeMaterial>;
   saveServerGrade(grade: ServerGrade): Promise<void>;
   /** Seams holding records newer than their server grade (a re-grade was lost, e.g. to a restart). */
   staleSeams(): Promise<string[]>;

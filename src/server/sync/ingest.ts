@@ -19,6 +19,8 @@ import type { Logger } from '../log.js';
 import type { Device, PlannedRecord, Storage } from '../storage/types.js';
 import type { DeviceKeyCache } from './device-keys.js';
 import { verifyJwsNode, type VerifiedBytes } from './verify.js';
+import type { FreshReadings } from '../grading/fresh-readings.js';
+import type { Reading } from '../../domain/index.js';
 import type { JwsKind } from '../../protocol/index.js';
 
 export interface SyncDeps {
@@ -27,6 +29,8 @@ export interface SyncDeps {
   readonly log: Logger;
   readonly now: () => Date;
   readonly regrade: (seamIds: readonly string[]) => void;
+  /** Where the ingest leaves the readings it stored, for the re-grade that follows (see FreshReadings). */
+  readonly fresh?: FreshReadings;
 }
 
 export function parseBody(text: string): unknown {
@@ -84,8 +88,14 @@ export async function verifyDeviceRequest(
 
 const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes).digest('hex');
 
-/** Judges every record of a verified batch payload into what storage will hold. */
-export function planRecords(records: readonly unknown[]): PlannedRecord[] {
+/**
+ * Judges every record of a verified batch payload into what storage will hold. onReading sees each valid reading
+ * as judged, by its place in the batch.
+ */
+export function planRecords(
+  records: readonly unknown[],
+  onReading?: (index: number, reading: Reading) => void,
+): PlannedRecord[] {
   return records.map((input, index): PlannedRecord => {
     const verdict = judgeRecord(input);
     switch (verdict.status) {
@@ -99,6 +109,7 @@ export function planRecords(records: readonly unknown[]): PlannedRecord[] {
             reason: 'seamId: demo seams stay on the device and never sync',
           };
         }
+        if (onReading && r.kind === 'reading') onReading(index, r.body.reading);
         return {
           index,
           status: 'valid',
@@ -151,7 +162,11 @@ export async function ingestBatch(
   const { device, jws, verified } = await verifyDeviceRequest(deps, bodyText, 'batch');
   lap('parseVerify');
   const payload = parseBatchPayload(verified.payload);
-  const planned = planRecords(payload.records);
+  const readings = new Map<number, Reading>();
+  const planned = planRecords(
+    payload.records,
+    deps.fresh ? (index, reading) => readings.set(index, reading) : undefined,
+  );
   lap('validate');
   const receivedAt = deps.now().toISOString();
   const outcome = await deps.storage.applyBatch({
@@ -189,6 +204,13 @@ export async function ingestBatch(
       batchId: payload.batchId,
       recordId: id,
     });
+  }
+  if (deps.fresh) {
+    for (const r of outcome.results) {
+      const reading = r.status === 'accepted' ? readings.get(r.index) : undefined;
+      const p = planned[r.index];
+      if (reading && p?.status === 'valid') deps.fresh.add(p.seamId, p.id, reading);
+    }
   }
   if (outcome.seamsChanged.length) deps.regrade(outcome.seamsChanged);
   const counts = { accepted: 0, duplicate: 0, parked: 0, rejected: 0 };

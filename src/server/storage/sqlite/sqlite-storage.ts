@@ -14,6 +14,8 @@ import type {
   EnrolAttempt,
   EnrolmentCodeRow,
   EnrolOutcome,
+  GradeMaterial,
+  GradeRecord,
   NewAccount,
   NewChange,
   ParkedRecord,
@@ -229,6 +231,10 @@ export class SqliteStorage implements Storage {
       securityEvents: p('SELECT * FROM security_events ORDER BY id DESC LIMIT ?'),
       recordsAll: p('SELECT * FROM records ORDER BY receive_seq'),
       recordsOfSeam: p('SELECT * FROM records WHERE seam_id = ? ORDER BY receive_seq'),
+      recordHeadsOfSeam: p(
+        'SELECT receive_seq, id, kind, device_kid, device_seq FROM records WHERE seam_id = ? ORDER BY receive_seq',
+      ),
+      recordBody: p('SELECT body FROM records WHERE receive_seq = ?'),
       recordsOfDevice: p('SELECT * FROM records WHERE device_kid = ? ORDER BY receive_seq'),
       recordsOfSeamAndDevice: p(
         'SELECT * FROM records WHERE seam_id = ? AND device_kid = ? ORDER BY receive_seq',
@@ -691,6 +697,33 @@ export class SqliteStorage implements Storage {
       seam: this.#seamSync(seamId),
       records: (this.#s.recordsOfSeam.all(seamId) as RecordRow[]).map(toRecord),
     }))();
+  }
+
+  async gradeMaterial(seamId: string, bodiesHeld: ReadonlySet<string>): Promise<GradeMaterial> {
+    const s = this.#s;
+    const head = (r: Omit<RecordRow, 'body'>, body: string | null): GradeRecord => ({
+      receiveSeq: r.receive_seq,
+      id: r.id,
+      kind: r.kind,
+      deviceKid: r.device_kid,
+      deviceSeq: r.device_seq,
+      body: bodiesHeld.has(r.id) ? null : body,
+    });
+    return this.#db.transaction((): GradeMaterial => {
+      const heads = s.recordHeadsOfSeam.all(seamId) as Omit<RecordRow, 'body'>[];
+      const missing = heads.reduce((n, h) => (bodiesHeld.has(h.id) ? n : n + 1), 0);
+      // Fetching bodies one by one pays off only while few are missing; otherwise one scan reads them all.
+      const records =
+        missing * 4 <= heads.length
+          ? heads.map((h) =>
+              head(
+                h,
+                bodiesHeld.has(h.id) ? null : (s.recordBody.get(h.receive_seq) as { body: string }).body,
+              ),
+            )
+          : (s.recordsOfSeam.all(seamId) as RecordRow[]).map((r) => head(r, r.body));
+      return { seam: this.#seamSync(seamId), records };
+    })();
   }
 
   #seamSync(id: string): SeamRow | undefined {
