@@ -12,8 +12,6 @@ import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
-import { setFlagsFromString } from 'node:v8';
-import { runInNewContext } from 'node:vm';
 import type { Reading, Seam } from '../src/domain/index.js';
 import {
   generateDeviceKey,
@@ -46,11 +44,6 @@ const WARMUP = 2;
 const TARGET = 0.35;
 const DRAIN = 10_000;
 const T = '2026-12-01T08:00:00.000Z';
-
-// Each timed section starts from a collected heap, so a collection it meets was caused by its own garbage, not by
-// what the bench made before it (sealing, signing, the raw rows).
-setFlagsFromString('--expose-gc');
-const collect = runInNewContext('gc') as () => void;
 
 const median = (xs: readonly number[]): number =>
   [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] as number;
@@ -229,7 +222,6 @@ async function ingestBench() {
 
     // The ingest path as the server runs it: ingestBatch (timed by stage), then the re-grade of the seam.
     const lap: Partial<Record<IngestStage, number>> = {};
-    collect();
     const c3 = process.cpuUsage();
     const t3 = performance.now();
     const reply = await ingestBatch(deps, sealed.body, (stage, ms) => (lap[stage] = ms));
@@ -241,7 +233,6 @@ async function ingestBench() {
     if (reply.results.some((r) => r.status !== 'accepted')) throw new Error('bench batch was not accepted');
 
     rawBatch.run(sealed.batchId, key.kid, b + 1, 'x', sealed.body, BATCH, T);
-    collect();
     const c6 = process.cpuUsage();
     const t6 = performance.now();
     raw
