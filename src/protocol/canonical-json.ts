@@ -2,8 +2,9 @@
 // numbers and strings as JSON.stringify writes them. Equal values give equal text, whatever order their members
 // were built in, so content can be compared and hashed as text. Only JSON values are accepted: undefined, NaN,
 // Infinity, functions, symbols, bigints and cycles are errors, never dropped or turned into null silently.
-// The server writes one of these per received record, so the writer avoids per-member arrays and sorts only the
-// objects whose members are not in order already (a device's canonical payload parses back in order).
+// The server writes one of these per received record. A device's canonical payload parses back with every object's
+// members in order, and for such a value JSON.stringify (native) writes the canonical text already; anything else
+// goes through the writer below, which avoids per-member arrays and sorts only objects that are out of order.
 
 /** Keys JSON writes as they are (no escapes), so quoting them needs no JSON.stringify. */
 const PLAIN_KEY = /^[A-Za-z0-9_$-]*$/;
@@ -27,7 +28,45 @@ function inOrder(keys: readonly string[]): boolean {
 }
 
 export function canonicalJson(value: unknown): string {
-  return write(value, []);
+  return stringifiesCanonically(value, 0) ? JSON.stringify(value) : write(value, []);
+}
+
+/** Past this depth the writer decides (and names a cycle, which would otherwise recurse here without end). */
+const MAX_FAST_DEPTH = 32;
+
+/**
+ * Whether JSON.stringify writes value exactly as the writer would: JSON values only (finite numbers, no undefined,
+ * functions, symbols or bigints), plain objects and arrays, every object's members already in sorted order.
+ */
+function stringifiesCanonically(value: unknown, depth: number): boolean {
+  switch (typeof value) {
+    case 'string':
+    case 'boolean':
+      return true;
+    case 'number':
+      return Number.isFinite(value);
+    case 'object': {
+      if (value === null) return true;
+      if (depth > MAX_FAST_DEPTH) return false;
+      if (Array.isArray(value)) {
+        if ((value as { toJSON?: unknown }).toJSON !== undefined) return false;
+        for (let i = 0; i < value.length; i++) if (!stringifiesCanonically(value[i], depth + 1)) return false;
+        return true;
+      }
+      const proto: unknown = Object.getPrototypeOf(value);
+      if (proto !== Object.prototype && proto !== null) return false;
+      const record = value as Record<string, unknown>;
+      let previous: string | null = null;
+      for (const key of Object.keys(record)) {
+        if (previous !== null && previous > key) return false;
+        previous = key;
+        if (!stringifiesCanonically(record[key], depth + 1)) return false;
+      }
+      return true;
+    }
+    default:
+      return false;
+  }
 }
 
 function write(value: unknown, open: object[]): string {

@@ -110,6 +110,9 @@ export function planRecords(
           };
         }
         if (onReading && r.kind === 'reading') onReading(index, r.body.reading);
+        // A valid reading body is, member for member, the one received: its schema holds closed objects only and
+        // changes no value. Written from the received value, whose members a canonical payload keeps in order, the
+        // canonical text comes from JSON.stringify. (Set-ups can differ: a record-of-levels schema drops some keys.)
         return {
           index,
           status: 'valid',
@@ -118,7 +121,7 @@ export function planRecords(
           schemaVersion: r.schemaVersion,
           seamId: r.seamId,
           seq: r.seq,
-          body: canonicalJson(r.body),
+          body: canonicalJson(r.kind === 'reading' ? (input as { body: unknown }).body : r.body),
           createdAt: r.createdAt,
         };
       }
