@@ -233,7 +233,7 @@ export class SqliteStorage implements Storage {
       recordsOfSeam: p('SELECT * FROM records WHERE seam_id = ? ORDER BY receive_seq'),
       recordHeadsOfSeam: p(
         'SELECT receive_seq, id, kind, device_kid, device_seq FROM records WHERE seam_id = ? ORDER BY receive_seq',
-      ),
+      ).raw(true),
       recordBody: p('SELECT body FROM records WHERE receive_seq = ?'),
       recordsOfDevice: p('SELECT * FROM records WHERE device_kid = ? ORDER BY receive_seq'),
       recordsOfSeamAndDevice: p(
@@ -701,27 +701,25 @@ export class SqliteStorage implements Storage {
 
   async gradeMaterial(seamId: string, bodiesHeld: ReadonlySet<string>): Promise<GradeMaterial> {
     const s = this.#s;
-    const head = (r: Omit<RecordRow, 'body'>, body: string | null): GradeRecord => ({
-      receiveSeq: r.receive_seq,
-      id: r.id,
-      kind: r.kind,
-      deviceKid: r.device_kid,
-      deviceSeq: r.device_seq,
-      body: bodiesHeld.has(r.id) ? null : body,
-    });
     return this.#db.transaction((): GradeMaterial => {
-      const heads = s.recordHeadsOfSeam.all(seamId) as Omit<RecordRow, 'body'>[];
-      const missing = heads.reduce((n, h) => (bodiesHeld.has(h.id) ? n : n + 1), 0);
+      // Rows as arrays: a seam may have many thousand records, and the grade needs only these columns.
+      const heads = s.recordHeadsOfSeam.all(seamId) as [number, string, string, string | null, number][];
+      const missing = heads.reduce((n, h) => (bodiesHeld.has(h[1]) ? n : n + 1), 0);
       // Fetching bodies one by one pays off only while few are missing; otherwise one scan reads them all.
-      const records =
+      const bodies =
         missing * 4 <= heads.length
-          ? heads.map((h) =>
-              head(
-                h,
-                bodiesHeld.has(h.id) ? null : (s.recordBody.get(h.receive_seq) as { body: string }).body,
-              ),
-            )
-          : (s.recordsOfSeam.all(seamId) as RecordRow[]).map((r) => head(r, r.body));
+          ? null
+          : new Map((s.recordsOfSeam.all(seamId) as RecordRow[]).map((r) => [r.receive_seq, r.body]));
+      const records = heads.map(([receiveSeq, id, kind, deviceKid, deviceSeq]): GradeRecord => ({
+        receiveSeq,
+        id,
+        kind,
+        deviceKid,
+        deviceSeq,
+        body: bodiesHeld.has(id)
+          ? null
+          : (bodies?.get(receiveSeq) ?? (s.recordBody.get(receiveSeq) as { body: string }).body),
+      }));
       return { seam: this.#seamSync(seamId), records };
     })();
   }
