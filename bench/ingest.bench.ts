@@ -32,7 +32,7 @@ import { ingestBatch, type IngestStage, type SyncDeps } from '../src/server/sync
 
 const REGRADE_STAGES: readonly RegradeStage[] = ['read', 'fold', 'check', 'grade', 'save'];
 const BATCH = 500;
-const BATCHES = 20;
+const BATCHES = 40;
 const WARMUP = 5;
 const TARGET = 0.35;
 const DRAIN = 10_000;
