@@ -3,7 +3,7 @@ import { EXECUTION_CLASS_PRESETS } from './criteria/presets.js';
 import { BUILT_IN_CRITERIA } from './criteria/registry.js';
 import { CHECKLIST_RULES } from './grade/checklist.js';
 import { jointFamily, readingSide } from './model/joint.js';
-import { PARAMETERS, PARAMETER_NAMES } from './model/parameters.js';
+import { PARAMETERS, PARAMETER_NAMES, type ParameterName } from './model/parameters.js';
 import {
   EDITIONS,
   MAX_READINGS,
@@ -139,11 +139,24 @@ function checkWithdrawal(r: Reading, i: number, problems: Problem[]): void {
   }
 }
 
+const PARAMETER_ORDER = new Map<string, number>(PARAMETER_NAMES.map((name, i) => [name, i]));
+
+/**
+ * The parameters a reading holds a value for, in PARAMETER_NAMES order (the order problems are reported in). A
+ * reading holds a few of the many parameters, so its own keys are the shorter list to walk.
+ */
+function presentValues(values: Reading['values']): ParameterName[] {
+  const present = (Object.keys(values) as ParameterName[]).filter((n) => values[n] !== undefined);
+  return present.length > 1
+    ? present.sort((a, b) => (PARAMETER_ORDER.get(a) ?? 0) - (PARAMETER_ORDER.get(b) ?? 0))
+    : present;
+}
+
 function checkValues(file: SeamFile, r: Reading, i: number, problems: Problem[]): void {
   const { seam } = file;
   const at = `readings[${i}]`;
   const family = jointFamily(seam.joint.type);
-  const present = PARAMETER_NAMES.filter((n) => r.values[n] !== undefined);
+  const present = presentValues(r.values);
   if (!present.length)
     problems.push({
       path: `${at}.values`,

@@ -37,6 +37,11 @@ const cases: [string, SeamFile][] = [
   ],
   ['a seam that fails its schema', seamFile({ ...seam, length: -1 }, [toe(150, { position: 600 })])],
   ['no readings', seamFile(seam, [])],
+  // Values in another order than the parameters' (stored bodies have their keys sorted): problems keep theirs.
+  [
+    'several values that do not apply, listed out of order',
+    seamFile(seam, [reading({ throat: 4, leg2: 3, toeAngle: 150, leg1: 2, convexity: 1 }, { side: 'face' })]),
+  ],
   [
     'many faulty readings',
     seamFile(
