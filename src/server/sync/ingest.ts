@@ -19,7 +19,7 @@ import type { Logger } from '../log.js';
 import type { Device, PlannedRecord, Storage } from '../storage/types.js';
 import type { DeviceKeyCache } from './device-keys.js';
 import { verifyJwsNode, type VerifiedBytes } from './verify.js';
-import type { FreshReadings } from '../grading/fresh-readings.js';
+import { parsesLikeItsCanonicalText, type FreshReadings } from '../grading/fresh-readings.js';
 import type { Reading } from '../../domain/index.js';
 import type { JwsKind } from '../../protocol/index.js';
 
@@ -166,9 +166,10 @@ export async function ingestBatch(
   lap('parseVerify');
   const payload = parseBatchPayload(verified.payload);
   const readings = new Map<number, Reading>();
+  const handOver = deps.fresh !== undefined && parsesLikeItsCanonicalText(verified.payloadText);
   const planned = planRecords(
     payload.records,
-    deps.fresh ? (index, reading) => readings.set(index, reading) : undefined,
+    handOver ? (index, reading) => readings.set(index, reading) : undefined,
   );
   lap('validate');
   const receivedAt = deps.now().toISOString();
@@ -208,7 +209,7 @@ export async function ingestBatch(
       recordId: id,
     });
   }
-  if (deps.fresh) {
+  if (deps.fresh && handOver) {
     for (const r of outcome.results) {
       const reading = r.status === 'accepted' ? readings.get(r.index) : undefined;
       const p = planned[r.index];
