@@ -9,6 +9,7 @@ import {
   parseBatchPayload,
   parseFlattenedJws,
   PROTOCOL_VERSION,
+  readJwsBody,
   readProtectedHeader,
   type BatchReply,
   type FlattenedJws,
@@ -50,7 +51,7 @@ export async function verifyDeviceRequest(
   bodyText: string,
   kind: JwsKind,
 ): Promise<{ device: Device; jws: FlattenedJws; verified: VerifiedBytes }> {
-  const jws = parseFlattenedJws(parseBody(bodyText));
+  const jws = readJwsBody(bodyText) ?? parseFlattenedJws(parseBody(bodyText));
   const header = readProtectedHeader(jws, kind);
   const device = await deps.storage.getDevice(header.kid);
   if (!device) {
