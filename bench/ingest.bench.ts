@@ -252,9 +252,9 @@ async function ingestBench() {
     target: TARGET,
     // Shares of the ingest time (medians of each stage over the median total, so they need not add up to 100):
     // parseVerify = parse the body, check the header, verify the signature, decode the payload; validate = judge
-    // every record with the domain schemas and make canonical bodies; store = the one storage transaction (the
-    // batch with its JWS, the records, links, the device's contact); other = the rest of ingestBatch (payload
-    // hash, log line); regrade = read the seam back, fold it, parseSeamFile, gradeSeam, save the grade.
+    // every record with the domain schemas and make canonical bodies; store = the payload hash and the one storage
+    // transaction (the batch with its JWS, the records, links, the device's contact); other = the rest of
+    // ingestBatch (readings handed to the re-grade, log line); regrade = the stages in regradeMs below.
     sharePercent: {
       parseVerify: share(stages.parseVerify),
       validate: share(stages.validate),
