@@ -3,9 +3,10 @@ import { EXECUTION_CLASS_PRESETS } from './criteria/presets.js';
 import { BUILT_IN_CRITERIA } from './criteria/registry.js';
 import { CHECKLIST_RULES } from './grade/checklist.js';
 import { jointFamily, readingSide } from './model/joint.js';
-import { PARAMETERS, PARAMETER_NAMES } from './model/parameters.js';
+import { PARAMETERS, PARAMETER_NAMES, type ParameterName } from './model/parameters.js';
 import {
   EDITIONS,
+  MAX_READINGS,
   seamFileSchema,
   seamRecordSchema,
   type Edition,
@@ -138,11 +139,24 @@ function checkWithdrawal(r: Reading, i: number, problems: Problem[]): void {
   }
 }
 
+const PARAMETER_ORDER = new Map<string, number>(PARAMETER_NAMES.map((name, i) => [name, i]));
+
+/**
+ * The parameters a reading holds a value for, in PARAMETER_NAMES order (the order problems are reported in). A
+ * reading holds a few of the many parameters, so its own keys are the shorter list to walk.
+ */
+function presentValues(values: Reading['values']): ParameterName[] {
+  const present = (Object.keys(values) as ParameterName[]).filter((n) => values[n] !== undefined);
+  return present.length > 1
+    ? present.sort((a, b) => (PARAMETER_ORDER.get(a) ?? 0) - (PARAMETER_ORDER.get(b) ?? 0))
+    : present;
+}
+
 function checkValues(file: SeamFile, r: Reading, i: number, problems: Problem[]): void {
   const { seam } = file;
   const at = `readings[${i}]`;
   const family = jointFamily(seam.joint.type);
-  const present = PARAMETER_NAMES.filter((n) => r.values[n] !== undefined);
+  const present = presentValues(r.values);
   if (!present.length)
     problems.push({
       path: `${at}.values`,
@@ -330,7 +344,39 @@ export function parseSeamFile(input: unknown, options: ParseOptions = {}): Parse
   const schema = options.allowNoReadings ? seamRecordSchema : seamFileSchema;
   const parsed = v.safeParse(schema, input, { abortEarly: false, abortPipeEarly: true });
   if (!parsed.success) return { ok: false, problems: toProblems(parsed.issues).slice(0, MAX_PROBLEMS) };
-  const file = parsed.output;
+  return crossChecked(parsed.output);
+}
+
+/**
+ * parseSeamFile for readings that each passed the reading schema already (the server's stored records, judged one
+ * by one when they arrived): the rest of the file goes through the schema, the reading count is bounded, and every
+ * cross-field check runs on the whole file, so the answer is the one parseSeamFile gives for the same file. It saves
+ * re-walking the schema of every reading each time a seam with thousands of them is graded again.
+ */
+export function parseSeamFileWithCheckedReadings(
+  withoutReadings: unknown,
+  readings: readonly Reading[],
+  options: ParseOptions = {},
+): Parsed<SeamFile> {
+  const min = options.allowNoReadings ? 0 : 1;
+  if (readings.length < min || readings.length > MAX_READINGS) {
+    const message =
+      readings.length < min
+        ? 'readings must hold at least 1 item'
+        : `readings holds ${readings.length} items; at most ${MAX_READINGS} are accepted`;
+    return { ok: false, problems: [{ path: 'readings', message }] };
+  }
+  const rest =
+    typeof withoutReadings === 'object' && withoutReadings !== null && !Array.isArray(withoutReadings)
+      ? { ...withoutReadings, readings: [] }
+      : withoutReadings;
+  const parsed = v.safeParse(seamRecordSchema, rest, { abortEarly: false, abortPipeEarly: true });
+  if (!parsed.success) return { ok: false, problems: toProblems(parsed.issues).slice(0, MAX_PROBLEMS) };
+  return crossChecked({ ...parsed.output, readings: [...readings] });
+}
+
+/** What relates fields to each other, on a file whose fields each passed the schema. */
+function crossChecked(file: SeamFile): Parsed<SeamFile> {
   const problems: Problem[] = [];
   checkSeam(file, problems);
   checkReferences(file, problems);

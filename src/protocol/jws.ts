@@ -55,6 +55,20 @@ export function parseFlattenedJws(input: unknown): FlattenedJws {
   };
 }
 
+/** A request body exactly as jwsBody writes it: the three members in that order, no space, nothing escaped. */
+const JWS_BODY =
+  /^\{"protected":"([A-Za-z0-9_-]+)","payload":"([A-Za-z0-9_-]+)","signature":"([A-Za-z0-9_-]+)"\}$/;
+
+/**
+ * The flattened JWS of a body written as jwsBody writes it, read without a JSON parse (one scan of a body that is
+ * mostly a long payload); null for any other text, which then goes through JSON.parse and parseFlattenedJws. What
+ * it returns is what those two would return for the same text.
+ */
+export function readJwsBody(text: string): FlattenedJws | null {
+  const m = JWS_BODY.exec(text);
+  return m ? { protected: m[1] as string, payload: m[2] as string, signature: m[3] as string } : null;
+}
+
 /** A base64url JSON segment, decoded but not verified: only for finding the key to verify with. */
 export function decodeJsonSegment(segment: string, what: string): unknown {
   let text: string;

@@ -28,9 +28,24 @@ describe('canonical JSON', () => {
         const text = canonicalJson(value);
         expect(canonicalJson(shuffleKeys(value, random))).toBe(text);
         expect(JSON.parse(text)).toEqual(JSON.parse(JSON.stringify(value)));
+        // Read back, every member is in order: the same text again (the path a device's payload takes).
+        expect(canonicalJson(JSON.parse(text))).toBe(text);
       }),
       { numRuns: 300, seed: 7 },
     );
+  });
+
+  it('writes values in order, out of order, and nested past any shortcut alike', () => {
+    let deep: unknown = { b: [1, { d: 2, c: 3 }], a: 'x' };
+    let expected = '{"a":"x","b":[1,{"c":3,"d":2}]}';
+    for (let i = 0; i < 60; i++) {
+      deep = { z: i, y: [deep] };
+      expected = `{"y":[${expected}],"z":${i}}`;
+    }
+    expect(canonicalJson(deep)).toBe(expected);
+    expect(canonicalJson(JSON.parse(expected))).toBe(expected);
+    const list = Object.assign([1, 2], { toJSON: () => 'not a list' });
+    expect(canonicalJson({ a: list })).toBe('{"a":[1,2]}');
   });
 
   it('refuses what JSON cannot say, rather than dropping it', () => {
@@ -38,6 +53,10 @@ describe('canonical JSON', () => {
     expect(() => canonicalJson([Number.NaN])).toThrow(/NaN/);
     expect(() => canonicalJson(Infinity)).toThrow();
     expect(() => canonicalJson(1n)).toThrow(/bigint/);
+    const holey = [1, 2, 3];
+    delete holey[1];
+    expect(() => canonicalJson({ a: holey })).toThrow(/undefined/);
+    expect(() => canonicalJson({ a: { b: () => 1 } })).toThrow(/function/);
     const loop: Record<string, unknown> = {};
     loop['self'] = loop;
     expect(() => canonicalJson(loop)).toThrow(/cycle/);

@@ -7,8 +7,10 @@ import {
   canonicalJson,
   generateDeviceKey,
   isProtocolError,
+  jwsBody,
   JWS_TYPES,
   parseFlattenedJws,
+  readJwsBody,
   readProtectedHeader,
   signJws,
   thumbprint,
@@ -105,6 +107,34 @@ describe('JWS helpers', () => {
     ]) {
       expect(() => parseFlattenedJws(bad)).toThrow();
     }
+  });
+
+  it('reads a body as jwsBody writes it without a JSON parse, and leaves every other text to the parser', () => {
+    const jws = { protected: b64('{"alg":"ES256"}'), payload: b64('{"a":1}'), signature: 'c2ln-_' };
+    const body = jwsBody(jws);
+    expect(readJwsBody(body)).toEqual(parseFlattenedJws(JSON.parse(body)));
+    const others = [
+      JSON.stringify(jws, null, 1),
+      JSON.stringify({ payload: jws.payload, protected: jws.protected, signature: jws.signature }),
+      JSON.stringify({ ...jws, header: {} }),
+      body.replace(jws.payload, `${jws.payload.slice(0, 2)}\\u0041${jws.payload.slice(3)}`),
+      body.replace(jws.signature, ''),
+      body.replace(jws.signature, 'c2ln='),
+      `${body}\n`,
+      ` ${body}`,
+    ];
+    for (const text of others) expect(readJwsBody(text)).toBeNull();
+    // Members drawn from base64url and the characters that would change how JSON reads them.
+    const member = fc.string({ unit: fc.constantFrom('A', 'z', '0', '-', '_', '=', '\\', '"', ' ', 'u') });
+    fc.assert(
+      fc.property(member, member, member, (p, q, r) => {
+        const text = `{"protected":"${p}","payload":"${q}","signature":"${r}"}`;
+        const read = readJwsBody(text);
+        if (read) expect(read).toEqual(parseFlattenedJws(JSON.parse(text)));
+        else expect([p, q, r].every((m) => /^[A-Za-z0-9_-]+$/.test(m))).toBe(false);
+      }),
+      { numRuns: 500, seed: 5 },
+    );
   });
 
   it('refuses every single flipped bit in header, payload or signature', async () => {

@@ -58,14 +58,19 @@ describe('SQLite database file', () => {
 
   it('applies a failing migration not at all', () => {
     const file = tempFile();
+    const latest = Math.max(...MIGRATIONS.map((m) => m.version));
     const broken = [
       ...MIGRATIONS,
-      { version: 2, name: 'broken', sql: 'CREATE TABLE half (x INTEGER); SELECT no_such_function();' },
+      {
+        version: latest + 1,
+        name: 'broken',
+        sql: 'CREATE TABLE half (x INTEGER); SELECT no_such_function();',
+      },
     ];
     expect(() => openDatabase(file, { migrations: broken })).toThrow();
     const db = openDatabase(file);
     expect(db.prepare("SELECT count(*) AS n FROM sqlite_master WHERE name = 'half'").get()).toEqual({ n: 0 });
-    expect(db.prepare('SELECT max(version) AS v FROM migrations').get()).toEqual({ v: 1 });
+    expect(db.prepare('SELECT max(version) AS v FROM migrations').get()).toEqual({ v: latest });
     db.close();
   });
 });
@@ -305,6 +310,40 @@ function contract(name: string, make: () => Storage) {
       await s.close();
     });
 
+    it('gives back each batch body exactly as received, whether its payload text was kept as bytes or not', async () => {
+      const s = make();
+      await withDevice(s);
+      const bytes = Buffer.from('{"records":["ä",1]}', 'utf8');
+      const text = bytes.toString('base64url');
+      const a = Buffer.from('A');
+      // "QQ" and "QR" both decode to the byte "A"; only "QQ" is what encoding that byte writes back.
+      const cases = [
+        {
+          id: 'b1',
+          jws: `{"protected":"eyJ9","payload":"${text}","signature":"c2ln"}`,
+          payload: { text, bytes },
+        },
+        { id: 'b2', jws: '{ "payload" : "QR", "protected":"eyJ9" }', payload: { text: 'QR', bytes: a } },
+        {
+          id: 'b3',
+          jws: '{"payload":"QQ","protected":"eyJ9","signature":"QQ"}',
+          payload: { text: 'QQ', bytes: a },
+        },
+        { id: 'b4', jws: '{"payload":"QQ"}', payload: undefined },
+        // A hint that does not match the body cannot change what is kept.
+        { id: 'b5', jws: '{"payload":"QUJD"}', payload: { text: 'QQ', bytes: a } },
+      ];
+      for (const [i, c] of cases.entries()) {
+        await s.applyBatch(
+          plan(c.id, [valid(0, `r${i}`)], { jws: c.jws, ...(c.payload ? { jwsPayload: c.payload } : {}) }),
+        );
+      }
+      for (const c of cases) expect((await s.getBatch(c.id))?.jws).toBe(c.jws);
+      const dumped = (await s.dumpRecordTables())['batches'] as unknown[][];
+      expect(dumped.map((row) => row[4])).toEqual(cases.map((c) => c.jws));
+      await s.close();
+    });
+
     it('stores nothing of a batch from a device it does not know', async () => {
       const s = make();
       const dump = JSON.stringify(await s.dumpRecordTables());
@@ -420,6 +459,29 @@ function contract(name: string, make: () => Storage) {
         ['r1', 2],
       ]);
       expect(await s.listSeamIds()).toEqual(['seam-1']);
+      await s.close();
+    });
+
+    it('gives the grade its material without the bodies it holds already, however few or many those are', async () => {
+      const s = make();
+      await withDevice(s);
+      const ids = Array.from({ length: 8 }, (_, i) => `r${i}`);
+      await s.applyBatch(
+        plan(
+          'b1',
+          ids.map((id, i) => valid(i, id)),
+        ),
+      );
+      const full = (await s.seamMaterial('seam-1')).records.map((r) => [r.id, r.receiveSeq, r.body]);
+      // Most held (bodies fetched one by one), none held, and some held (one scan).
+      for (const held of [new Set(ids.slice(1)), new Set<string>(), new Set(['r0', 'r5', 'nope'])]) {
+        const material = await s.gradeMaterial('seam-1', held);
+        expect(material.records.map((r) => [r.id, r.receiveSeq, r.body])).toEqual(
+          full.map(([id, seq, body]) => [id, seq, held.has(id as string) ? null : body]),
+        );
+        expect(material.records.every((r) => r.kind === 'reading' && r.deviceKid === KID_A)).toBe(true);
+        expect(material.records.map((r) => r.deviceSeq)).toEqual(ids.map((_, i) => i + 1));
+      }
       await s.close();
     });
   });

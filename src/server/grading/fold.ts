@@ -3,7 +3,7 @@
 // per checklist item the device's latest answer (by its sequence number, never its clock), and every reading.
 import { SEAM_FILE_FORMAT, type Reading, type Round, type Seam } from '../../domain/index.js';
 import type { RecordBodies } from '../../protocol/index.js';
-import type { SeamMaterial, StoredRecord } from '../storage/types.js';
+import type { GradeMaterial, GradeRecord } from '../storage/types.js';
 
 export interface LeftOut {
   readonly recordId: string;
@@ -19,15 +19,21 @@ export interface FoldedSeam {
   readonly leftOut: LeftOut[];
 }
 
-const bodyOf = <K extends keyof RecordBodies>(r: StoredRecord): RecordBodies[K] =>
-  JSON.parse(r.body) as RecordBodies[K];
+function bodyOf<K extends keyof RecordBodies>(r: GradeRecord): RecordBodies[K] {
+  if (r.body === null) throw new Error(`record ${r.id} came without its body and was not held already`);
+  return JSON.parse(r.body) as RecordBodies[K];
+}
 
-export function foldSeam(material: SeamMaterial): FoldedSeam {
+/**
+ * Folds a seam's records into its state. held: readings the caller holds parsed already, by record id, equal to
+ * what parsing their stored bodies gives (the re-grade's fresh readings); their bodies need not be read or parsed.
+ */
+export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Reading>): FoldedSeam {
   const leftOut: LeftOut[] = [];
   let basedOn = 0;
   let setup: { revision: number; receiveSeq: number; seam: Seam } | null = null;
   const rounds = new Map<number, { receiveSeq: number; round: Round }>();
-  const answers = new Map<string, StoredRecord[]>();
+  const answers = new Map<string, GradeRecord[]>();
   const readings: { recordId: string; reading: Reading }[] = [];
 
   for (const r of material.records) {
@@ -76,7 +82,7 @@ export function foldSeam(material: SeamMaterial): FoldedSeam {
         break;
       }
       case 'reading':
-        readings.push({ recordId: r.id, reading: bodyOf<'reading'>(r).reading });
+        readings.push({ recordId: r.id, reading: held?.get(r.id) ?? bodyOf<'reading'>(r).reading });
         break;
       default:
         leftOut.push({ recordId: r.id, reason: `records of kind "${r.kind}" are not graded` });
@@ -115,8 +121,8 @@ export function foldSeam(material: SeamMaterial): FoldedSeam {
  * One device's answers are ordered by its sequence numbers (its clock may be wrong); between devices, the answer
  * received last counts.
  */
-function latestAnswer(candidates: readonly StoredRecord[]): StoredRecord {
-  const perDevice = new Map<string | null, StoredRecord>();
+function latestAnswer(candidates: readonly GradeRecord[]): GradeRecord {
+  const perDevice = new Map<string | null, GradeRecord>();
   for (const c of candidates) {
     const held = perDevice.get(c.deviceKid);
     if (
@@ -127,9 +133,9 @@ function latestAnswer(candidates: readonly StoredRecord[]): StoredRecord {
       perDevice.set(c.deviceKid, c);
     }
   }
-  let winner: StoredRecord | undefined;
+  let winner: GradeRecord | undefined;
   for (const c of perDevice.values()) if (!winner || c.receiveSeq > winner.receiveSeq) winner = c;
-  return winner as StoredRecord;
+  return winner as GradeRecord;
 }
 
 /** The seam file for the grader (format and units fixed: records carry values in the stored units). */

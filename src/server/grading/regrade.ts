@@ -2,10 +2,17 @@
 // its result beside the grade the device reported: a review never rests on a device's arithmetic. Readings that
 // do not fit their seam (a value that does not apply to the joint, a round not received yet) are left out of the
 // grade and listed with the grader's reason; the records themselves stay stored.
-import { gradeSeam, parseSeamFile, type Problem, type Reading, type SeamFile } from '../../domain/index.js';
+import {
+  gradeSeam,
+  parseSeamFileWithCheckedReadings,
+  type Problem,
+  type Reading,
+  type SeamFile,
+} from '../../domain/index.js';
 import type { Logger } from '../log.js';
 import type { ServerGrade, Storage } from '../storage/types.js';
 import { foldSeam, seamFileOf, type LeftOut } from './fold.js';
+import { FreshReadings } from './fresh-readings.js';
 
 export interface GradeSummary {
   readonly state: 'graded' | 'incomplete' | 'noReadings' | 'noSetup' | 'noRounds' | 'invalid';
@@ -29,11 +36,20 @@ export interface GradeSummary {
 const MAX_PASSES = 4;
 const READING_PATH = /^readings\[(\d+)\]/;
 
-export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
+/** The stages of a re-grade, for `npm run bench:ingest` to say where the time goes. */
+export type RegradeStage = 'read' | 'fold' | 'check' | 'grade' | 'save';
+export type StageTimer = (stage: RegradeStage) => void;
+
+export function gradeFolded(
+  material: Parameters<typeof foldSeam>[0],
+  lap: StageTimer = () => {},
+  held?: ReadonlyMap<string, Reading>,
+): {
   basedOn: number;
   summary: GradeSummary;
 } {
-  const folded = foldSeam(material);
+  const folded = foldSeam(material, held);
+  lap('fold');
   const empty = {
     levelMet: null,
     meetsRequired: null,
@@ -52,11 +68,11 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
   let kept = folded.readings;
   let file: SeamFile | null = null;
   for (let pass = 0; pass < MAX_PASSES && !file; pass++) {
-    const parsed = parseSeamFile(
-      seamFileOf(
-        folded,
-        kept.map((r) => r.reading),
-      ),
+    // Stored readings passed the reading schema when they arrived (judgeRecord); what is left to check here is
+    // how they fit their seam and each other.
+    const parsed = parseSeamFileWithCheckedReadings(
+      seamFileOf(folded, []),
+      kept.map((r) => r.reading),
       { allowNoReadings: true },
     );
     if (parsed.ok) {
@@ -100,8 +116,10 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
       },
     };
   }
+  lap('check');
   const grade = gradeSeam(file, undefined, { readings: 'columns' });
   const readingCount = file.readings.filter((r: Reading) => !r.withdrawn).length;
+  lap('grade');
   return {
     basedOn: folded.basedOn,
     summary: {
@@ -130,6 +148,8 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
  */
 export class Regrader {
   readonly #pending = new Set<string>();
+  /** Readings the ingest stored just now, for the next re-grade of their seam (see FreshReadings). */
+  readonly fresh = new FreshReadings();
   #running: Promise<void> | null = null;
 
   constructor(
@@ -168,9 +188,18 @@ export class Regrader {
     }
   }
 
-  async regrade(seamId: string): Promise<ServerGrade> {
-    const material = await this.storage.seamMaterial(seamId);
-    const { basedOn, summary } = gradeFolded(material);
+  async regrade(seamId: string, timed?: (stage: RegradeStage, ms: number) => void): Promise<ServerGrade> {
+    let mark = timed ? performance.now() : 0;
+    const lap: StageTimer = (stage) => {
+      if (!timed) return;
+      const t = performance.now();
+      timed(stage, t - mark);
+      mark = t;
+    };
+    const held = this.fresh.take(seamId);
+    const material = await this.storage.gradeMaterial(seamId, new Set(held.keys()));
+    lap('read');
+    const { basedOn, summary } = gradeFolded(material, lap, held);
     const grade: ServerGrade = {
       seamId,
       basedOn,
@@ -181,6 +210,7 @@ export class Regrader {
       summary: JSON.stringify(summary),
     };
     await this.storage.saveServerGrade(grade);
+    lap('save');
     return grade;
   }
 }

@@ -105,6 +105,11 @@ export interface BatchPlan {
   readonly payloadSha256: string;
   /** The request body exactly as received (the JWS), kept for audit. */
   readonly jws: string;
+  /**
+   * The JWS payload member as it appears in jws, and the bytes it decodes to: a store may keep the bytes instead
+   * of the text, when they encode back to exactly that text.
+   */
+  readonly jwsPayload?: { readonly text: string; readonly bytes: Uint8Array };
   readonly receivedAt: string;
   readonly records: readonly PlannedRecord[];
   readonly deviceGrades: readonly { readonly seamId: string; readonly grade: string }[];
@@ -159,6 +164,21 @@ export interface SeamRow {
 export interface SeamMaterial {
   readonly seam: SeamRow | undefined;
   readonly records: readonly StoredRecord[];
+}
+
+/** A record as the grade folds it; body is null for a record the caller said it holds already. */
+export interface GradeRecord {
+  readonly receiveSeq: number;
+  readonly id: string;
+  readonly kind: string;
+  readonly deviceKid: string | null;
+  readonly deviceSeq: number;
+  readonly body: string | null;
+}
+
+export interface GradeMaterial {
+  readonly seam: SeamRow | undefined;
+  readonly records: readonly GradeRecord[];
 }
 
 export interface ServerGrade {
@@ -272,6 +292,11 @@ export interface Storage {
   listSeamIds(): Promise<string[]>;
   /** What a grade is computed from: the seam's set-up given on the server, and every record of the seam. */
   seamMaterial(seamId: string): Promise<SeamMaterial>;
+  /**
+   * seamMaterial as the re-grade needs it: the bodies of the records named in bodiesHeld (which the caller holds
+   * parsed already) may be left out, as null.
+   */
+  gradeMaterial(seamId: string, bodiesHeld: ReadonlySet<string>): Promise<GradeMaterial>;
   saveServerGrade(grade: ServerGrade): Promise<void>;
   /** Seams holding records newer than their server grade (a re-grade was lost, e.g. to a restart). */
   staleSeams(): Promise<string[]>;

@@ -9,16 +9,19 @@ import {
   parseBatchPayload,
   parseFlattenedJws,
   PROTOCOL_VERSION,
+  readJwsBody,
   readProtectedHeader,
   type BatchReply,
-  type Verified,
+  type FlattenedJws,
 } from '../../protocol/index.js';
 import { isDemoId } from '../../demo/kestrel-point-yard.js';
 import { HttpError } from '../http/errors.js';
 import type { Logger } from '../log.js';
 import type { Device, PlannedRecord, Storage } from '../storage/types.js';
 import type { DeviceKeyCache } from './device-keys.js';
-import { verifyJwsNode } from './verify.js';
+import { verifyJwsNode, type VerifiedBytes } from './verify.js';
+import { parsesLikeItsCanonicalText, type FreshReadings } from '../grading/fresh-readings.js';
+import type { Reading } from '../../domain/index.js';
 import type { JwsKind } from '../../protocol/index.js';
 
 export interface SyncDeps {
@@ -27,6 +30,8 @@ export interface SyncDeps {
   readonly log: Logger;
   readonly now: () => Date;
   readonly regrade: (seamIds: readonly string[]) => void;
+  /** Where the ingest leaves the readings it stored, for the re-grade that follows (see FreshReadings). */
+  readonly fresh?: FreshReadings;
 }
 
 export function parseBody(text: string): unknown {
@@ -45,8 +50,8 @@ export async function verifyDeviceRequest(
   deps: SyncDeps,
   bodyText: string,
   kind: JwsKind,
-): Promise<{ device: Device; verified: Verified }> {
-  const jws = parseFlattenedJws(parseBody(bodyText));
+): Promise<{ device: Device; jws: FlattenedJws; verified: VerifiedBytes }> {
+  const jws = readJwsBody(bodyText) ?? parseFlattenedJws(parseBody(bodyText));
   const header = readProtectedHeader(jws, kind);
   const device = await deps.storage.getDevice(header.kid);
   if (!device) {
@@ -69,7 +74,7 @@ export async function verifyDeviceRequest(
   }
   const key = deps.deviceKeys.get(device.kid, device.publicJwk);
   try {
-    return { device, verified: verifyJwsNode(jws, kind, key) };
+    return { device, jws, verified: verifyJwsNode(jws, kind, key) };
   } catch (error) {
     deps.log.warn('security', { what: 'badSignature', kind, kid: device.kid });
     await deps.storage.recordSecurityEvent(
@@ -82,10 +87,16 @@ export async function verifyDeviceRequest(
   }
 }
 
-const sha256 = (text: string): string => createHash('sha256').update(text, 'utf8').digest('hex');
+const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes).digest('hex');
 
-/** Judges every record of a verified batch payload into what storage will hold. */
-export function planRecords(records: readonly unknown[]): PlannedRecord[] {
+/**
+ * Judges every record of a verified batch payload into what storage will hold. onReading sees each valid reading
+ * as judged, by its place in the batch.
+ */
+export function planRecords(
+  records: readonly unknown[],
+  onReading?: (index: number, reading: Reading) => void,
+): PlannedRecord[] {
   return records.map((input, index): PlannedRecord => {
     const verdict = judgeRecord(input);
     switch (verdict.status) {
@@ -99,6 +110,10 @@ export function planRecords(records: readonly unknown[]): PlannedRecord[] {
             reason: 'seamId: demo seams stay on the device and never sync',
           };
         }
+        if (onReading && r.kind === 'reading') onReading(index, r.body.reading);
+        // A valid reading body is, member for member, the one received: its schema holds closed objects only and
+        // changes no value. Written from the received value, whose members a canonical payload keeps in order, the
+        // canonical text comes from JSON.stringify. (Set-ups can differ: a record-of-levels schema drops some keys.)
         return {
           index,
           status: 'valid',
@@ -107,7 +122,7 @@ export function planRecords(records: readonly unknown[]): PlannedRecord[] {
           schemaVersion: r.schemaVersion,
           seamId: r.seamId,
           seq: r.seq,
-          body: canonicalJson(r.body),
+          body: canonicalJson(r.kind === 'reading' ? (input as { body: unknown }).body : r.body),
           createdAt: r.createdAt,
         };
       }
@@ -148,18 +163,25 @@ export async function ingestBatch(
     timed(stage, t - mark);
     mark = t;
   };
-  const { device, verified } = await verifyDeviceRequest(deps, bodyText, 'batch');
+  const { device, jws, verified } = await verifyDeviceRequest(deps, bodyText, 'batch');
   lap('parseVerify');
   const payload = parseBatchPayload(verified.payload);
-  const planned = planRecords(payload.records);
+  const readings = new Map<number, Reading>();
+  const handOver = deps.fresh !== undefined && parsesLikeItsCanonicalText(verified.payloadText);
+  const planned = planRecords(
+    payload.records,
+    handOver ? (index, reading) => readings.set(index, reading) : undefined,
+  );
   lap('validate');
   const receivedAt = deps.now().toISOString();
   const outcome = await deps.storage.applyBatch({
     batchId: payload.batchId,
     deviceKid: device.kid,
     deviceSeq: payload.deviceSeq,
-    payloadSha256: sha256(verified.payloadText),
+    // The payload's bytes are checked UTF-8, so this is the hash of payloadText's UTF-8 as well.
+    payloadSha256: sha256(verified.payloadBytes),
     jws: bodyText,
+    jwsPayload: { text: jws.payload, bytes: verified.payloadBytes },
     receivedAt,
     records: planned,
     deviceGrades: (payload.deviceGrades ?? []).map((g) => ({ seamId: g.seamId, grade: canonicalJson(g) })),
@@ -187,6 +209,13 @@ export async function ingestBatch(
       batchId: payload.batchId,
       recordId: id,
     });
+  }
+  if (deps.fresh && handOver) {
+    for (const r of outcome.results) {
+      const reading = r.status === 'accepted' ? readings.get(r.index) : undefined;
+      const p = planned[r.index];
+      if (reading && p?.status === 'valid') deps.fresh.add(p.seamId, p.id, reading);
+    }
   }
   if (outcome.seamsChanged.length) deps.regrade(outcome.seamsChanged);
   const counts = { accepted: 0, duplicate: 0, parked: 0, rejected: 0 };

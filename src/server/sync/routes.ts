@@ -9,7 +9,11 @@ import { ingestBatch, type SyncDeps } from './ingest.js';
 import { issueNonce, pull } from './pull.js';
 
 export function syncRoutes(deps: AppDeps): Hono<AppEnv> {
-  const sync: AppDeps & SyncDeps = { ...deps, regrade: (ids) => deps.regrader.schedule(ids) };
+  const sync: AppDeps & SyncDeps = {
+    ...deps,
+    regrade: (ids) => deps.regrader.schedule(ids),
+    fresh: deps.regrader.fresh,
+  };
   const app = new Hono<AppEnv>();
   app.use('*', rateLimit(deps.limiters.sync, 'sync', deps.config.trustProxy));
   app.use('*', async (c, next) => {

@@ -16,7 +16,12 @@ import {
 export const publicKeyObject = (publicJwk: string): KeyObject =>
   createPublicKey({ key: JSON.parse(publicJwk) as Record<string, string>, format: 'jwk' });
 
-export function verifyJwsNode(jws: FlattenedJws, kind: JwsKind, key: KeyObject): Verified {
+/** What was verified, with the payload's bytes (the store may keep those in place of their base64url text). */
+export interface VerifiedBytes extends Verified {
+  readonly payloadBytes: Buffer;
+}
+
+export function verifyJwsNode(jws: FlattenedJws, kind: JwsKind, key: KeyObject): VerifiedBytes {
   const header = readProtectedHeader(jws, kind);
   const signature = Buffer.from(jws.signature, 'base64url');
   let ok = false;
@@ -40,5 +45,5 @@ export function verifyJwsNode(jws: FlattenedJws, kind: JwsKind, key: KeyObject):
   } catch {
     throw new ProtocolError('malformed', 'the payload is not JSON');
   }
-  return { header, payloadText, payload };
+  return { header, payloadText, payload, payloadBytes: bytes };
 }

@@ -162,4 +162,15 @@ CREATE TABLE security_events (
 );
 `,
   },
+  {
+    version: 2,
+    name: 'batch payloads kept as their bytes',
+    // A batch's JWS is kept exactly as received. Most of it is the base64url payload, a third larger than the
+    // bytes it encodes; when those bytes encode back to exactly the received text, they are kept as a blob and
+    // jws holds the rest of the body, with the payload's place in it (jws_payload_at, in UTF-16 code units).
+    sql: `
+ALTER TABLE batches ADD COLUMN jws_payload BLOB;
+ALTER TABLE batches ADD COLUMN jws_payload_at INTEGER;
+`,
+  },
 ];

@@ -14,6 +14,8 @@ import type {
   EnrolAttempt,
   EnrolmentCodeRow,
   EnrolOutcome,
+  GradeMaterial,
+  GradeRecord,
   NewAccount,
   NewChange,
   ParkedRecord,
@@ -26,6 +28,7 @@ import type {
   Storage,
   StoredRecord,
 } from '../types.js';
+import { joinJws, splitJws } from './jws-columns.js';
 import { openDatabase, type Db, type OpenOptions } from './open.js';
 
 interface AccountRow {
@@ -122,7 +125,9 @@ const toChange = (r: ChangeDbRow): ChangeRow => ({
 
 /** The tables a replayed batch must leave byte-identical, with the order their dump is taken in. */
 const RECORD_TABLE_DUMPS = {
-  batches: 'SELECT * FROM batches ORDER BY batch_id',
+  // The JWS as received, whichever way it is laid out in its columns (joined below).
+  batches: `SELECT batch_id, device_kid, device_seq, payload_sha256, jws, record_count, received_at, jws_payload,
+    jws_payload_at FROM batches ORDER BY batch_id`,
   records: 'SELECT * FROM records ORDER BY receive_seq',
   parked_records: 'SELECT * FROM parked_records ORDER BY id',
   rejections: 'SELECT * FROM rejections ORDER BY batch_id, record_index',
@@ -189,9 +194,11 @@ export class SqliteStorage implements Storage {
       takeNonce: p('DELETE FROM nonces WHERE nonce = ? AND expires_at > ?'),
       deleteExpiredNonces: p('DELETE FROM nonces WHERE expires_at <= ?'),
       batch: p('SELECT * FROM batches WHERE batch_id = ?'),
+      batchOwner: p('SELECT device_kid, payload_sha256 FROM batches WHERE batch_id = ?'),
       insertBatch: p(
-        `INSERT INTO batches (batch_id, device_kid, device_seq, payload_sha256, jws, record_count, received_at)
-         VALUES (?, ?, ?, ?, ?, ?, ?)`,
+        `INSERT INTO batches (batch_id, device_kid, device_seq, payload_sha256, jws, record_count, received_at,
+           jws_payload, jws_payload_at)
+         VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)`,
       ),
       insertRecord: p(
         `INSERT INTO records (id, kind, schema_version, seam_id, device_kid, batch_id, device_seq, body,
@@ -224,6 +231,10 @@ export class SqliteStorage implements Storage {
       securityEvents: p('SELECT * FROM security_events ORDER BY id DESC LIMIT ?'),
       recordsAll: p('SELECT * FROM records ORDER BY receive_seq'),
       recordsOfSeam: p('SELECT * FROM records WHERE seam_id = ? ORDER BY receive_seq'),
+      recordHeadsOfSeam: p(
+        'SELECT receive_seq, id, kind, device_kid, device_seq FROM records WHERE seam_id = ? ORDER BY receive_seq',
+      ).raw(true),
+      recordBody: p('SELECT body FROM records WHERE receive_seq = ?'),
       recordsOfDevice: p('SELECT * FROM records WHERE device_kid = ? ORDER BY receive_seq'),
       recordsOfSeamAndDevice: p(
         'SELECT * FROM records WHERE seam_id = ? AND device_kid = ? ORDER BY receive_seq',
@@ -437,7 +448,8 @@ export class SqliteStorage implements Storage {
 
   #apply(plan: BatchPlan): BatchOutcome {
     const s = this.#s;
-    const known = s.batch.get(plan.batchId) as { device_kid: string; payload_sha256: string } | undefined;
+    const known = s.batchOwner.get(plan.batchId) as
+      { device_kid: string; payload_sha256: string } | undefined;
     if (known && (known.device_kid !== plan.deviceKid || known.payload_sha256 !== plan.payloadSha256)) {
       return {
         kind: 'conflict',
@@ -449,14 +461,17 @@ export class SqliteStorage implements Storage {
     }
     const replay = known !== undefined;
     if (!replay) {
+      const jws = splitJws(plan.jws, plan.jwsPayload);
       s.insertBatch.run(
         plan.batchId,
         plan.deviceKid,
         plan.deviceSeq,
         plan.payloadSha256,
-        plan.jws,
+        jws.jws,
         plan.records.length,
         plan.receivedAt,
+        jws.payload,
+        jws.payloadAt,
       );
     }
     const results: RecordResult[] = [];
@@ -559,6 +574,8 @@ export class SqliteStorage implements Storage {
           jws: string;
           record_count: number;
           received_at: string;
+          jws_payload: Buffer | null;
+          jws_payload_at: number | null;
         }
       | undefined;
     return (
@@ -567,7 +584,7 @@ export class SqliteStorage implements Storage {
         deviceKid: row.device_kid,
         deviceSeq: row.device_seq,
         payloadSha256: row.payload_sha256,
-        jws: row.jws,
+        jws: joinJws(row.jws, row.jws_payload, row.jws_payload_at),
         recordCount: row.record_count,
         receivedAt: row.received_at,
       }
@@ -682,6 +699,31 @@ export class SqliteStorage implements Storage {
     }))();
   }
 
+  async gradeMaterial(seamId: string, bodiesHeld: ReadonlySet<string>): Promise<GradeMaterial> {
+    const s = this.#s;
+    return this.#db.transaction((): GradeMaterial => {
+      // Rows as arrays: a seam may have many thousand records, and the grade needs only these columns.
+      const heads = s.recordHeadsOfSeam.all(seamId) as [number, string, string, string | null, number][];
+      const missing = heads.reduce((n, h) => (bodiesHeld.has(h[1]) ? n : n + 1), 0);
+      // Fetching bodies one by one pays off only while few are missing; otherwise one scan reads them all.
+      const bodies =
+        missing * 4 <= heads.length
+          ? null
+          : new Map((s.recordsOfSeam.all(seamId) as RecordRow[]).map((r) => [r.receive_seq, r.body]));
+      const records = heads.map(([receiveSeq, id, kind, deviceKid, deviceSeq]): GradeRecord => ({
+        receiveSeq,
+        id,
+        kind,
+        deviceKid,
+        deviceSeq,
+        body: bodiesHeld.has(id)
+          ? null
+          : (bodies?.get(receiveSeq) ?? (s.recordBody.get(receiveSeq) as { body: string }).body),
+      }));
+      return { seam: this.#seamSync(seamId), records };
+    })();
+  }
+
   #seamSync(id: string): SeamRow | undefined {
     const row = this.#s.seam.get(id) as
       { id: string; namespace: SeamRow['namespace']; setup: string; created_at: string } | undefined;
@@ -793,6 +835,10 @@ export class SqliteStorage implements Storage {
       for (const [table, sql] of Object.entries(RECORD_TABLE_DUMPS)) {
         dump[table] = this.#db.prepare(sql).raw(true).all();
       }
+      dump['batches'] = (dump['batches'] as unknown[][]).map((row) => {
+        const [jwsPayload, jwsPayloadAt] = row.slice(7) as [Buffer | null, number | null];
+        return [...row.slice(0, 4), joinJws(row[4] as string, jwsPayload, jwsPayloadAt), ...row.slice(5, 7)];
+      });
       return dump;
     })();
   }
