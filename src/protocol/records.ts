@@ -101,6 +101,21 @@ function rejected(recordId: string | null, problems: readonly Problem[]): Record
 const prefixed = (prefix: string, problems: readonly Problem[]): Problem[] =>
   problems.map((p) => ({ path: p.path === '(file)' ? prefix : `${prefix}.${p.path}`, message: p.message }));
 
+/** How deep a parked record may nest: far beyond any record shape, well inside what the canonical writer recurses. */
+export const PARKED_MAX_DEPTH = 64;
+
+/** Whether a parsed JSON value nests arrays and objects deeper than `limit` (walked without recursion). */
+export function nestsDeeperThan(value: unknown, limit: number): boolean {
+  const stack: { v: unknown; d: number }[] = [{ v: value, d: 0 }];
+  while (stack.length) {
+    const { v: item, d } = stack.pop() as { v: unknown; d: number };
+    if (typeof item !== 'object' || item === null) continue;
+    if (d >= limit) return true;
+    for (const child of Array.isArray(item) ? item : Object.values(item)) stack.push({ v: child, d: d + 1 });
+  }
+  return false;
+}
+
 /** Judges one record of a batch: valid (with its typed body), parked (newer schema) or rejected (with reasons). */
 export function judgeRecord(input: unknown): RecordVerdict {
   if (typeof input !== 'object' || input === null || Array.isArray(input)) {
@@ -122,6 +137,12 @@ export function judgeRecord(input: unknown): RecordVerdict {
     ]);
   }
   if (version > RECORD_SCHEMA_VERSION) {
+    // Kept unread until this server learns the schema, but written out as canonical JSON: bound its depth first.
+    if (nestsDeeperThan(raw, PARKED_MAX_DEPTH)) {
+      return rejected(recordId, [
+        { path: 'record', message: `nests deeper than ${PARKED_MAX_DEPTH} levels; no record shape does` },
+      ]);
+    }
     const seamId = raw['seamId'];
     return {
       status: 'parked',

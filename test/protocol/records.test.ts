@@ -3,6 +3,8 @@
 import { describe, expect, expectTypeOf, it } from 'vitest';
 import {
   judgeRecord,
+  nestsDeeperThan,
+  PARKED_MAX_DEPTH,
   recordFromOutbox,
   RECORD_SCHEMA_VERSION,
   type RecordBodies,
@@ -78,6 +80,24 @@ describe('judging a record', () => {
     expect(judgeRecord(record('reading', 'q', 'not even an object', { schemaVersion: 9 })).status).toBe(
       'parked',
     );
+  });
+
+  it('refuses, with a reason, a newer-schema record nested too deep to write back out (it would overflow the stack)', () => {
+    let deep: unknown = 'core';
+    for (let i = 0; i < 20_000; i++) deep = { d: deep };
+    const v = judgeRecord(record('photo', 'deep', deep, { schemaVersion: RECORD_SCHEMA_VERSION + 1 }));
+    expect(v.status).toBe('rejected');
+    expect(reason(record('photo', 'deep', deep, { schemaVersion: RECORD_SCHEMA_VERSION + 1 }))).toContain(
+      `nests deeper than ${PARKED_MAX_DEPTH} levels`,
+    );
+    // Just inside the bound it is parked as before.
+    let shallow: unknown = 1;
+    for (let i = 0; i < PARKED_MAX_DEPTH - 2; i++) shallow = [shallow];
+    expect(
+      judgeRecord(record('photo', 'ok', shallow, { schemaVersion: RECORD_SCHEMA_VERSION + 1 })).status,
+    ).toBe('parked');
+    expect(nestsDeeperThan([[1]], 2)).toBe(false);
+    expect(nestsDeeperThan([[[1]]], 2)).toBe(true);
   });
 
   it('rejects faulty records of a known schema with the field and the fault', () => {
