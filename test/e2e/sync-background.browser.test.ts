@@ -70,14 +70,16 @@ describe('Background Sync', () => {
     const local = await localRecords(page);
     expect(local.outbox).toHaveLength(3);
     expect(await serverRecords(server)).toEqual([]);
-    // The page failed to send while offline and asked the browser for a sync.
+    // Offline, the page asked the browser for a sync (on the 'offline' event, or its next check within 30 s).
     await expect
-      .poll(() =>
-        page.evaluate(async () => {
-          const registration = await navigator.serviceWorker.ready;
-          const sync = (registration as unknown as { sync: { getTags(): Promise<string[]> } }).sync;
-          return sync.getTags();
-        }),
+      .poll(
+        () =>
+          page.evaluate(async () => {
+            const registration = await navigator.serviceWorker.ready;
+            const sync = (registration as unknown as { sync: { getTags(): Promise<string[]> } }).sync;
+            return sync.getTags();
+          }),
+        { timeout: 45_000 },
       )
       .toContain(OUTBOX_SYNC_TAG);
     expect(errors).toEqual([]);

@@ -58,9 +58,12 @@ export function startSync(): void {
         if (stillWaiting(status)) requestBackgroundSend();
       });
       addEventListener('offline', requestBackgroundSend);
+      if (!navigator.onLine) requestBackgroundSend();
       setInterval(() => {
         // A sender waiting out its backoff keeps waiting; an idle one looks for new records.
         if (sender.status.state === 'idle' && navigator.onLine) void sender.sendNow();
+        // Offline: make sure the browser will wake the service worker once the network is back.
+        else if (!navigator.onLine) requestBackgroundSend();
       }, CHECK_EVERY_MS);
     })
     .catch(() => {
