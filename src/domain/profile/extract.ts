@@ -2,7 +2,7 @@
 // the left). Our method, step by step:
 //  1. each plate surface by a trimmed least-squares line over the outer fifth of the profile on its side, then
 //     grown inwards while points stay within the departure tolerance τ = max(4σ, 0.005 mm) (σ: plate scatter);
-//  2. the weld begins where three points in a row leave the plate line by more than τ; a dip below the line
+//  2. the weld begins where three points in a row (a smoothing window's worth when smoothed) leave the plate line by more than τ; a dip below the line
 //     first is an undercut, its depth the deepest point;
 //  3. the steepest point of the face between toe and crown (slope over ±k points) splits the toe transition from
 //     the cap; the toe transition is fitted with Pratt's circle (toe radius, with its RMS residual), the cap next
@@ -66,7 +66,13 @@ interface PlateSide {
 }
 
 /** Grows the plate from its outer fifth inwards; `dir` +1 walks left to right (plate 1), −1 right to left. */
-function plateSide(x: ArrayLike<number>, z: ArrayLike<number>, n: number, dir: 1 | -1): PlateSide | string {
+function plateSide(
+  x: ArrayLike<number>,
+  z: ArrayLike<number>,
+  n: number,
+  dir: 1 | -1,
+  run: number,
+): PlateSide | string {
   const outer = Math.max(MIN_PLATE_POINTS, Math.floor(n * OUTER_SHARE));
   if (outer * 2 >= n) return 'too few points for two plates and a weld';
   const from = dir === 1 ? 0 : n - outer;
@@ -100,8 +106,8 @@ function plateSide(x: ArrayLike<number>, z: ArrayLike<number>, n: number, dir: 1
     const r = (z[i] as number) - a - b * (x[i] as number);
     if (r > tau || r < -tau) {
       out++;
-      if (out === 3) {
-        departure = i - 2 * dir;
+      if (out === run) {
+        departure = i - (run - 1) * dir;
         break;
       }
       continue;
@@ -195,7 +201,7 @@ function toeOf(
   let flank: number | null = null;
   if (circle) {
     const footX = (circle.cx + line.b * (circle.cz - line.a)) / (1 + line.b * line.b);
-    if (Math.abs(footX - toeX) < 3 * circle.r + 1) {
+    if (Math.abs(footX - toeX) < Math.min(3 * circle.r + 0.2, 2)) {
       toeX = footX;
       toeZ = at(line, footX);
     }
@@ -263,11 +269,12 @@ export function extractSlice(
   z: ArrayLike<number>,
   n: number = x.length,
 ): SliceGeometry {
-  const raw = extractCore(x, z, n);
+  const raw = extractCore(x, z, n, 3);
   if (!(raw.noise > SMOOTH_ABOVE)) return raw;
   const dx = ((x[n - 1] as number) - (x[0] as number)) / (n - 1);
   const w = Math.max(3, 2 * Math.round(SMOOTH_SPAN_MM / dx / 2) + 1);
-  const smooth = extractCore(x, movingAverage(z, n, w), n);
+  // Averaged points are correlated over the window: the weld must stay off the line for a whole window.
+  const smooth = extractCore(x, movingAverage(z, n, w), n, w + 2);
   const rms = Math.hypot(raw.noise, (1 - smooth.quality) * QUALITY_TOLERANCE_MM);
   const quality = smooth.toes ? Math.min(1, Math.max(0, 1 - rms / QUALITY_TOLERANCE_MM)) : 0;
   const problems = [...smooth.problems];
@@ -279,7 +286,7 @@ export function extractSlice(
   return { ...smooth, noise: raw.noise, quality, flagged: quality < QUALITY_THRESHOLD, problems };
 }
 
-function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number): SliceGeometry {
+function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run: number): SliceGeometry {
   const problems: string[] = [];
   const fail = (why: string, noise = 0): SliceGeometry => ({
     points: n,
@@ -295,9 +302,9 @@ function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number): Sli
     problems: [why],
   });
   if (n < 3 * MIN_PLATE_POINTS) return fail(`only ${n} points`);
-  const left = plateSide(x, z, n, 1);
+  const left = plateSide(x, z, n, 1, run);
   if (typeof left === 'string') return fail(`plate 1: ${left}`);
-  const right = plateSide(x, z, n, -1);
+  const right = plateSide(x, z, n, -1, run);
   if (typeof right === 'string') return fail(`plate 2: ${right}`, left.sigma);
   if (left.departure >= right.departure) return fail('no weld found between the plates', left.sigma);
   // Crown: highest point above the chord between the departures.
