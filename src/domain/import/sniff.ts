@@ -81,9 +81,15 @@ export function sniffLayout(
   final: boolean,
   mapping?: ImportMapping,
 ): SniffResult {
-  const candidates = mapping?.delimiter ? [mapping.delimiter] : DELIMITERS;
-  let best: { d: Delimiter; rows: Row[]; width: number; score: number } | null = null;
-  for (const d of candidates) {
+  interface Candidate {
+    readonly d: Delimiter;
+    readonly rows: Row[];
+    readonly width: number;
+    readonly score: number;
+  }
+  let best: Candidate | null = null;
+  let stated: Candidate | null = null;
+  for (const d of DELIMITERS) {
     const all = rowsWith(sample, d, newline, final);
     const rows = all.slice(mapping?.skipLines ? 0 : 0);
     if (!rows.length) continue;
@@ -95,7 +101,19 @@ export function sniffLayout(
     const cells = rows.slice(1).flatMap((r) => r.cells.filter((c) => c.trim() !== ''));
     const numeric = cells.length ? cells.filter(looksNumeric).length / cells.length : 0;
     const score = consistent + numeric;
-    if (!best || score > best.score + 1e-9) best = { d, rows, width, score };
+    const candidate: Candidate = { d, rows, width, score };
+    if (d === mapping?.delimiter) stated = candidate;
+    if (!best || score > best.score + 1e-9) best = candidate;
+  }
+  if (mapping?.delimiter) {
+    // A stated delimiter wins unless the file plainly uses another one.
+    if (best && best.d !== mapping.delimiter && (!stated || best.score > stated.score + 0.3)) {
+      return {
+        ok: false,
+        message: `The mapping says values are separated by ${DELIMITER_NAMES[mapping.delimiter]}s, but this file uses ${DELIMITER_NAMES[best.d]}s: check the mapping's delimiter.`,
+      };
+    }
+    best = stated;
   }
   if (!best) {
     return {
