@@ -59,7 +59,7 @@ export type ProfileOutcome =
 
 const X_NAME = /^x\b|^x_|across/i;
 const Z_NAME = /^z\b|^z_|height|elevation/i;
-const SLICE_NAME = /^(slice|profile|y|pos|position|s|station)\b|^y_/i;
+const SLICE_NAME = /^(slice|profile|y|pos|position|s|station)(\b|_)/i;
 
 class Growable {
   data = new Float64Array(1024);
