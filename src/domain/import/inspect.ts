@@ -50,7 +50,8 @@ export function inspectTable(
       message: `The file is not a text table: it holds binary data (a control character near character ${bad + 1}).`,
     };
   }
-  const sniffed = sniffLayout(text, detectNewline(text), whole, options.mapping);
+  const sample = text.length > 64 * 1024 ? text.slice(0, 64 * 1024) : text;
+  const sniffed = sniffLayout(sample, detectNewline(text), whole && sample === text, options.mapping);
   if (!sniffed.ok) return sniffed;
   const layout = sniffed.layout;
   const signature = headerSignature(layout.columns.map((c) => c.name));

@@ -209,7 +209,9 @@ export class TableImport {
       return;
     }
     const newline = detectNewline(text);
-    const sniffed = sniffLayout(text, newline, final, this.options.mapping);
+    // The layout is read from the first 64 KiB only; the rows themselves are read once, below.
+    const sample = text.length > SNIFF_BYTES ? text.slice(0, SNIFF_BYTES) : text;
+    const sniffed = sniffLayout(sample, newline, final && sample === text, this.options.mapping);
     if (!sniffed.ok) {
       this.refuse({ message: sniffed.message });
       return;

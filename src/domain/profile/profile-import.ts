@@ -225,7 +225,9 @@ export class ProfileImport {
       return;
     }
     const newline = detectNewline(text);
-    const sniffed = sniffLayout(text, newline, final);
+    // The layout is read from the first 64 KiB only; the rows themselves are read once, below.
+    const sample = text.length > SNIFF_BYTES ? text.slice(0, SNIFF_BYTES) : text;
+    const sniffed = sniffLayout(sample, newline, final && sample === text);
     if (!sniffed.ok) {
       this.refusal = { message: sniffed.message };
       return;
