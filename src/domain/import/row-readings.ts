@@ -4,7 +4,7 @@
 // parseSeamFile.
 import { PARAMETERS, type ParameterName } from '../model/parameters.js';
 import type { Reading, Seam, Values } from '../model/seam-file.js';
-import { readCell } from './cells.js';
+import { plainNumber, readCell } from './cells.js';
 import type { CompiledMapping, CompiledValue } from './compile-mapping.js';
 import type { ImportMapping } from './mapping.js';
 
@@ -28,9 +28,10 @@ export interface QuarantinedRow {
   readonly reason: string;
 }
 
+const ACCEPTED = { ok: true } as const;
+
 type RowOutcome =
-  | { readonly ok: true; readonly readings: Reading[] }
-  | { readonly ok: false; readonly code: QuarantineCode; readonly reason: string };
+  typeof ACCEPTED | { readonly ok: false; readonly code: QuarantineCode; readonly reason: string };
 
 const fmt = (x: number) => String(Number(x.toPrecision(6)));
 
@@ -63,6 +64,8 @@ export class RowReader {
   private readonly instrument: Reading['instrument'];
   private readonly source: Reading['source'];
   private readonly round: number;
+  private readonly toe1: NonNullable<Reading['toe']>;
+  private readonly toe2: NonNullable<Reading['toe']>;
 
   constructor(
     private readonly compiled: CompiledMapping,
@@ -80,9 +83,12 @@ export class RowReader {
     };
     this.source = { kind: 'import', importId: ctx.importId };
     this.round = ctx.round ?? 1;
+    this.toe1 = { plate: 1, side: this.side };
+    this.toe2 = { plate: 2, side: this.side };
   }
 
-  read(cells: readonly string[], line: number): RowOutcome {
+  /** Appends the row's readings to `out`, or returns why the row is set aside (then `out` is untouched). */
+  read(cells: readonly string[], line: number, out: Reading[]): RowOutcome {
     const c = this.compiled;
     if (cells.length !== c.width) {
       const extraEmpty = cells.length > c.width && cells.slice(c.width).every((x) => x.trim() === '');
@@ -94,15 +100,20 @@ export class RowReader {
         };
       }
     }
-    const posCell = readCell(cells[c.position.column] ?? '', this.mapping.decimal ?? '.');
-    if (posCell.kind !== 'number') {
-      return {
-        ok: false,
-        code: 'position',
-        reason: `"${c.position.name}": ${describe(posCell.kind, cells[c.position.column] ?? '', 'a position')}`,
-      };
+    const posRaw = cells[c.position.column] ?? '';
+    let posValue = plainNumber(posRaw, this.mapping.decimal ?? '.');
+    if (posValue !== posValue) {
+      const posCell = readCell(posRaw, this.mapping.decimal ?? '.');
+      if (posCell.kind !== 'number') {
+        return {
+          ok: false,
+          code: 'position',
+          reason: `"${c.position.name}": ${describe(posCell.kind, posRaw, 'a position')}`,
+        };
+      }
+      posValue = posCell.value;
     }
-    const position = posCell.value * c.position.factor + (this.mapping.positionOffset ?? 0);
+    const position = posValue * c.position.factor + (this.mapping.positionOffset ?? 0);
     const seamLength = this.ctx.seam?.length;
     if (!(position >= 0) || (seamLength !== undefined && position > seamLength)) {
       return {
@@ -124,52 +135,55 @@ export class RowReader {
       }
       rowPlate = plate;
     }
-    const byPlate: [
-      Partial<Record<ParameterName, number>>,
-      Partial<Record<ParameterName, number>>,
-      Partial<Record<ParameterName, number>>,
-    ] = [{}, {}, {}];
+    // Values per slot (0: the cross-section, 1 and 2: the toes), made only when a slot gets a value.
+    let slot0: Partial<Record<ParameterName, number>> | null = null;
+    let slot1: Partial<Record<ParameterName, number>> | null = null;
+    let slot2: Partial<Record<ParameterName, number>> | null = null;
     const decimal = this.mapping.decimal ?? '.';
     let count = 0;
+    let hasHeight = false;
+    let hasWidth = false;
+    let legs = 0;
     for (const v of c.values) {
       const raw = cells[v.column] ?? '';
-      const cell = readCell(raw, decimal);
-      if (cell.kind === 'empty') continue;
-      if (cell.kind !== 'number') {
-        return {
-          ok: false,
-          code: cell.kind === 'nan' ? 'nan' : cell.kind === 'otherMark' ? 'decimalMark' : 'notNumber',
-          reason: `"${v.name}": ${describe(cell.kind, raw, 'a number', decimal)}`,
-        };
+      let num = plainNumber(raw, decimal);
+      if (num !== num) {
+        const cell = readCell(raw, decimal);
+        if (cell.kind === 'empty') continue;
+        if (cell.kind !== 'number') {
+          return {
+            ok: false,
+            code: cell.kind === 'nan' ? 'nan' : cell.kind === 'otherMark' ? 'decimalMark' : 'notNumber',
+            reason: `"${v.name}": ${describe(cell.kind, raw, 'a number', decimal)}`,
+          };
+        }
+        num = cell.value;
       }
-      let value = cell.value * v.factor;
+      let value = num * v.factor;
       if (v.flank) value = 180 - value;
-      const problem = rangeProblem(v, value, cell.value);
-      if (problem) return { ok: false, code: 'range', reason: problem };
+      const spec = PARAMETERS[v.parameter];
+      if ((spec.minExclusive ? value <= spec.min : value < spec.min) || value > spec.max) {
+        return { ok: false, code: 'range', reason: rangeProblem(v, value, num) ?? 'out of range' };
+      }
       const slot =
-        v.plate !== 0
-          ? v.plate
-          : PARAMETERS[v.parameter].per === 'toe'
-            ? rowPlate
-            : c.toeColumn || this.mapping.toe
-              ? rowPlate
-              : 0;
-      byPlate[slot][v.parameter] = value;
+        v.plate !== 0 ? v.plate : spec.per === 'toe' || c.toeColumn || this.mapping.toe ? rowPlate : 0;
+      if (slot === 1) (slot1 ??= {})[v.parameter] = value;
+      else if (slot === 2) (slot2 ??= {})[v.parameter] = value;
+      else (slot0 ??= {})[v.parameter] = value;
+      if (v.parameter === 'reinforcementHeight') hasHeight = true;
+      else if (v.parameter === 'reinforcementWidth') hasWidth = true;
+      else if (v.parameter === 'leg1' || v.parameter === 'leg2') legs++;
       count++;
     }
     if (count === 0) return { ok: false, code: 'noValues', reason: 'holds no measured value' };
-    const all = { ...byPlate[0], ...byPlate[1], ...byPlate[2] };
-    if (all.reinforcementHeight !== undefined && all.reinforcementWidth === undefined) {
+    if (hasHeight && !hasWidth) {
       return {
         ok: false,
         code: 'pairing',
         reason: 'has a reinforcement height without its width (the limit uses the width b)',
       };
     }
-    if ((all.leg1 === undefined) !== (all.leg2 === undefined)) {
-      return { ok: false, code: 'pairing', reason: 'has one leg length without the other' };
-    }
-    const readings: Reading[] = [];
+    if (legs === 1) return { ok: false, code: 'pairing', reason: 'has one leg length without the other' };
     // A plain literal, then the optional fields: spreading per row made every reading a slow dictionary object.
     const make = (suffix: string, values: Values, toe: Reading['toe']): Reading => {
       const r: { -readonly [K in keyof Reading]: Reading[K] } = {
@@ -192,16 +206,11 @@ export class RowReader {
       if (this.ctx.device) r.device = this.ctx.device;
       return r;
     };
-    if (hasAny(byPlate[1])) readings.push(make('a', byPlate[1], { plate: 1, side: this.side }));
-    if (hasAny(byPlate[2])) readings.push(make('b', byPlate[2], { plate: 2, side: this.side }));
-    if (hasAny(byPlate[0])) readings.push(make('s', byPlate[0], undefined));
-    return { ok: true, readings };
+    if (slot1) out.push(make('a', slot1, this.toe1));
+    if (slot2) out.push(make('b', slot2, this.toe2));
+    if (slot0) out.push(make('s', slot0, undefined));
+    return ACCEPTED;
   }
-}
-
-function hasAny(o: object): boolean {
-  for (const _ in o) return true;
-  return false;
 }
 
 function describe(

@@ -7,7 +7,7 @@ export interface Hasher {
   digest(): string;
 }
 
-const K = new Uint32Array([
+const K = new Int32Array([
   0x428a2f98, 0x71374491, 0xb5c0fbcf, 0xe9b5dba5, 0x3956c25b, 0x59f111f1, 0x923f82a4, 0xab1c5ed5, 0xd807aa98,
   0x12835b01, 0x243185be, 0x550c7dc3, 0x72be5d74, 0x80deb1fe, 0x9bdc06a7, 0xc19bf174, 0xe49b69c1, 0xefbe4786,
   0x0fc19dc6, 0x240ca1cc, 0x2de92c6f, 0x4a7484aa, 0x5cb0a9dc, 0x76f988da, 0x983e5152, 0xa831c66d, 0xb00327c8,
@@ -20,30 +20,30 @@ const K = new Uint32Array([
 
 /** SHA-256 after FIPS 180-4 §6.2. */
 export function sha256(): Hasher {
-  const h = new Uint32Array([
+  const h = new Int32Array([
     0x6a09e667, 0xbb67ae85, 0x3c6ef372, 0xa54ff53a, 0x510e527f, 0x9b05688c, 0x1f83d9ab, 0x5be0cd19,
   ]);
-  const w = new Uint32Array(64);
   const block = new Uint8Array(64);
   let fill = 0;
   let total = 0;
 
+  // Int32 arithmetic throughout (| 0): V8 keeps it in registers; the digest reads the words back unsigned.
+  const w = new Int32Array(64);
   const compress = (b: Uint8Array, at: number): void => {
     for (let i = 0; i < 16; i++) {
       const j = at + i * 4;
       w[i] =
-        (((b[j] as number) << 24) |
-          ((b[j + 1] as number) << 16) |
-          ((b[j + 2] as number) << 8) |
-          (b[j + 3] as number)) >>>
-        0;
+        ((b[j] as number) << 24) |
+        ((b[j + 1] as number) << 16) |
+        ((b[j + 2] as number) << 8) |
+        (b[j + 3] as number);
     }
     for (let i = 16; i < 64; i++) {
       const a = w[i - 15] as number;
       const c = w[i - 2] as number;
       const s0 = ((a >>> 7) | (a << 25)) ^ ((a >>> 18) | (a << 14)) ^ (a >>> 3);
       const s1 = ((c >>> 17) | (c << 15)) ^ ((c >>> 19) | (c << 13)) ^ (c >>> 10);
-      w[i] = ((w[i - 16] as number) + s0 + (w[i - 7] as number) + s1) >>> 0;
+      w[i] = ((w[i - 16] as number) + s0 + (w[i - 7] as number) + s1) | 0;
     }
     let a = h[0] as number,
       bb = h[1] as number,
@@ -69,14 +69,14 @@ export function sha256(): Hasher {
       bb = a;
       a = (t1 + t2) | 0;
     }
-    h[0] = (h[0] as number) + a;
-    h[1] = (h[1] as number) + bb;
-    h[2] = (h[2] as number) + c;
-    h[3] = (h[3] as number) + d;
-    h[4] = (h[4] as number) + e;
-    h[5] = (h[5] as number) + f;
-    h[6] = (h[6] as number) + g;
-    h[7] = (h[7] as number) + hh;
+    h[0] = ((h[0] as number) + a) | 0;
+    h[1] = ((h[1] as number) + bb) | 0;
+    h[2] = ((h[2] as number) + c) | 0;
+    h[3] = ((h[3] as number) + d) | 0;
+    h[4] = ((h[4] as number) + e) | 0;
+    h[5] = ((h[5] as number) + f) | 0;
+    h[6] = ((h[6] as number) + g) | 0;
+    h[7] = ((h[7] as number) + hh) | 0;
   };
 
   return {
@@ -116,7 +116,7 @@ export function sha256(): Hasher {
       const saved = total;
       this.update(pad);
       total = saved;
-      return Array.from(h, (x) => x.toString(16).padStart(8, '0')).join('');
+      return Array.from(h, (x) => (x >>> 0).toString(16).padStart(8, '0')).join('');
     },
   };
 }

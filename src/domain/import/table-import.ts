@@ -263,9 +263,8 @@ export class TableImport {
         if (line < start || this.refusal) return;
         if (cells.length === 1 && (cells[0] as string).trim() === '') return;
         this.dataRows++;
-        const out = reader.read(cells, line);
+        const out = reader.read(cells, line, this.readings);
         if (out.ok) {
-          for (const r of out.readings) this.readings.push(r);
           if (this.readings.length > MAX_IMPORT_READINGS) {
             this.refuse({
               message: `The file makes more than ${MAX_IMPORT_READINGS.toLocaleString('en')} readings (the most one seam holds) by line ${line}. Split the export by seam or by stretch.`,
