@@ -115,7 +115,7 @@ for (let s = 0; s < SLICES; s++) {
   const r2 = h / (1 - Math.cos(theta)) - rho;
   const xToe = (h * Math.sin(theta)) / (1 - Math.cos(theta));
   for (let i = 0; i < POINTS; i++) {
-    const x = -20 + (40 * i) / (POINTS - 1);
+    const x = -30 + (60 * i) / (POINTS - 1);
     const ax = Math.abs(x);
     let z = 0;
     if (ax <= r2 * Math.sin(theta)) z = h - r2 + Math.sqrt(r2 * r2 - ax * ax);

@@ -14,7 +14,7 @@
 //     angular misalignment β = atan(slope₁) − atan(slope₂), positive when the joint peaks towards the face.
 // Fit quality q = 1 − (RMS residual of all fitted points about their plate lines and toe circles) / 0.05 mm,
 // clipped to [0, 1], and 0 when a plate or toe could not be fitted. Slices with q < 0.6 are flagged.
-import { fitCirclePratt, fitLineTrimmed, lineFromSums, type Circle, type Line } from './fits.js';
+import { fitCirclePratt, fitLineTrimmed, lineFromSums, sseFromSums, type Circle, type Line } from './fits.js';
 
 export const QUALITY_TOLERANCE_MM = 0.05;
 export const QUALITY_THRESHOLD = 0.6;
@@ -82,28 +82,23 @@ function plateSide(
   const sigma = fit.rms;
   const tau = Math.max(4 * sigma, TAU_MIN);
   let { a, b } = fit.line;
-  // Sums over the accepted points, growing as the walk goes on; refitted at the end.
+  // Sums over the accepted points, growing as the walk goes on; refitted at the end, its scatter in closed form.
   const x0 = x[from] as number;
+  const z0 = z[from] as number;
   let sx = 0,
     sz = 0,
     sxx = 0,
     sxz = 0,
+    szz = 0,
     cnt = 0;
-  const add = (i: number) => {
-    const xi = (x[i] as number) - x0;
-    const zi = z[i] as number;
-    sx += xi;
-    sz += zi;
-    sxx += xi * xi;
-    sxz += xi * zi;
-    cnt++;
-  };
   const start = dir === 1 ? 0 : n - 1;
   const end = dir === 1 ? n : -1;
   let out = 0;
   let departure = -1;
   for (let i = start; i !== end; i += dir) {
-    const r = (z[i] as number) - a - b * (x[i] as number);
+    const xa = x[i] as number;
+    const za = z[i] as number;
+    const r = za - a - b * xa;
     if (r > tau || r < -tau) {
       out++;
       if (out === run) {
@@ -113,18 +108,21 @@ function plateSide(
       continue;
     }
     out = 0;
-    add(i);
+    const xi = xa - x0;
+    const zi = za - z0;
+    sx += xi;
+    sz += zi;
+    sxx += xi * xi;
+    sxz += xi * zi;
+    szz += zi * zi;
+    cnt++;
   }
   if (departure < 0) return 'no weld found: the profile never leaves the plate line';
-  const line = lineFromSums(cnt, sx, sz, sxx, sxz, x0);
+  const line = lineFromSums(cnt, sx, sz + cnt * z0, sxx, sxz + sx * z0, x0);
   if (!line || cnt < MIN_PLATE_POINTS) return `only ${cnt} points on the plate`;
   a = line.a;
   b = line.b;
-  let sse = 0;
-  for (let i = start; i !== departure; i += dir) {
-    const r = (z[i] as number) - a - b * (x[i] as number);
-    if (r <= tau && r >= -tau) sse += r * r;
-  }
+  const sse = sseFromSums(cnt, sx, sz, sxx, sxz, szz, x0, z0, line);
   // A dip below the line before the weld rises is an undercut.
   let undercut = 0;
   let i = departure;

@@ -56,9 +56,29 @@ export function lineRms(
   return to > from ? Math.sqrt(s / (to - from)) : 0;
 }
 
+/** Residual sum of squares of points with the given sums (x and z taken from x0, z0) about z = a + b·x, in closed form. */
+export function sseFromSums(
+  n: number,
+  sx: number,
+  sz: number,
+  sxx: number,
+  sxz: number,
+  szz: number,
+  x0: number,
+  z0: number,
+  l: Line,
+): number {
+  // The line in the shifted frame: z − z0 = a' + b·(x − x0).
+  const a = l.a + l.b * x0 - z0;
+  const b = l.b;
+  const sse = szz - 2 * a * sz - 2 * b * sxz + n * a * a + 2 * a * b * sx + b * b * sxx;
+  return sse > 0 ? sse : 0;
+}
+
 /**
- * Trimmed least squares: fit, drop points further than max(3·rms, floor) from the line, refit; twice. Robust to
- * spatter, dropouts and the odd spike, which a scanner's plate segment may hold.
+ * Trimmed least squares: fit, then refit over the points within max(3·rms, floor) of the line, twice. Robust to
+ * spatter, dropouts and the odd spike, which a scanner's plate segment may hold. The scatter comes from the sums
+ * in closed form, so each round is one pass over the points.
  */
 export function fitLineTrimmed(
   x: ArrayLike<number>,
@@ -67,47 +87,44 @@ export function fitLineTrimmed(
   to: number,
   floor: number,
 ): { line: Line; rms: number; inliers: number } | null {
-  let line = fitLine(x, z, from, to);
-  if (!line) return null;
-  let rms = lineRms(x, z, from, to, line);
-  let inliers = to - from;
-  for (let pass = 0; pass < 2; pass++) {
+  const x0 = x[from] as number;
+  const z0 = z[from] as number;
+  let line: Line | null = null;
+  let rms = 0;
+  let inliers = 0;
+  for (let pass = 0; pass < 3; pass++) {
     const tol = Math.max(3 * rms, floor);
     let sx = 0,
       sz = 0,
       sxx = 0,
       sxz = 0,
+      szz = 0,
       n = 0;
-    const x0 = x[from] as number;
+    const a = line?.a ?? 0;
+    const b = line?.b ?? 0;
     for (let i = from; i < to; i++) {
-      const r = (z[i] as number) - line.a - line.b * (x[i] as number);
-      if (r > tol || r < -tol) continue;
-      const xi = (x[i] as number) - x0;
-      const zi = z[i] as number;
+      const xa = x[i] as number;
+      const za = z[i] as number;
+      if (line) {
+        const r = za - a - b * xa;
+        if (r > tol || r < -tol) continue;
+      }
+      const xi = xa - x0;
+      const zi = za - z0;
       sx += xi;
       sz += zi;
       sxx += xi * xi;
       sxz += xi * zi;
+      szz += zi * zi;
       n++;
     }
-    const next = lineFromSums(n, sx, sz, sxx, sxz, x0);
+    const next = lineFromSums(n, sx, sz + n * z0, sxx, sxz + sx * z0, x0);
     if (!next) break;
     line = next;
     inliers = n;
-    rms = lineRms(x, z, from, to, line);
-    // The inliers' own scatter is the figure that matters: recompute it only over them.
-    let s = 0;
-    let k = 0;
-    const tol2 = Math.max(3 * rms, floor);
-    for (let i = from; i < to; i++) {
-      const r = (z[i] as number) - line.a - line.b * (x[i] as number);
-      if (r > tol2 || r < -tol2) continue;
-      s += r * r;
-      k++;
-    }
-    rms = k ? Math.sqrt(s / k) : rms;
+    rms = Math.sqrt(sseFromSums(n, sx, sz, sxx, sxz, szz, x0, z0, next) / n);
   }
-  return { line, rms, inliers };
+  return line ? { line, rms, inliers } : null;
 }
 
 export interface Circle {

@@ -4,7 +4,7 @@
 // user's decision with their reasons, as quarantined rows do.
 import { PARAMETERS, type ParameterName } from '../model/parameters.js';
 import type { Reading, Values } from '../model/seam-file.js';
-import { readCell } from '../import/cells.js';
+import { plainNumber, readCell } from '../import/cells.js';
 import type { ImportContext, QuarantinedRow } from '../import/row-readings.js';
 import { detectNewline, RowTokenizer, UnclosedQuote } from '../import/row-tokenizer.js';
 import { sha256, type Hasher } from '../import/sha256.js';
@@ -270,10 +270,20 @@ export class ProfileImport {
       t.feed(text, final, (cells, line) => {
         if (line < layout.dataStartLine || this.refusal) return;
         if (cells.length === 1 && (cells[0] as string).trim() === '') return;
-        const xc = readCell(cells[c.x] ?? '', this.decimal);
-        const zc = readCell(cells[c.z] ?? '', this.decimal);
-        if (xc.kind !== 'number' || zc.kind !== 'number') {
-          const bad = xc.kind !== 'number' ? cells[c.x] : cells[c.z];
+        const xr = cells[c.x] ?? '';
+        const zr = cells[c.z] ?? '';
+        let xv = plainNumber(xr, this.decimal);
+        let zv = plainNumber(zr, this.decimal);
+        if (xv !== xv) {
+          const cell = readCell(xr, this.decimal);
+          xv = cell.kind === 'number' ? cell.value : NaN;
+        }
+        if (zv !== zv) {
+          const cell = readCell(zr, this.decimal);
+          zv = cell.kind === 'number' ? cell.value : NaN;
+        }
+        if (xv !== xv || zv !== zv) {
+          const bad = xv !== xv ? xr : zr;
           this.quarantine.push({
             line,
             code: 'notNumber',
@@ -290,8 +300,8 @@ export class ProfileImport {
           this.keyPos =
             c.slice >= 0 ? (s.kind === 'number' ? s.value * c.sf : NaN) : (this.options.position ?? 0);
         }
-        this.px.push(xc.value * c.xf);
-        this.pz.push(zc.value * c.zf);
+        this.px.push(xv * c.xf);
+        this.pz.push(zv * c.zf);
       });
     } catch (e) {
       if (e instanceof UnclosedQuote)
