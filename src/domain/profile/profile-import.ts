@@ -140,6 +140,9 @@ export class ProfileImport {
   private refusal: { message: string; line?: number } | null = null;
   private layout: TableLayout | null = null;
   private tokenizer: RowTokenizer | null = null;
+  private fast = false;
+  private fastLine = 1;
+  private rest = '';
   private cols: { x: number; z: number; slice: number; xf: number; zf: number; sf: number } | null = null;
   private decimal: '.' | ',' = '.';
   private key: string | null = null;
@@ -258,6 +261,7 @@ export class ProfileImport {
     this.decimal = layout.decimal;
     this.layout = layout;
     this.tokenizer = new RowTokenizer(layout.delimiter, newline);
+    this.fast = newline !== '\r' && text.indexOf('"') === -1;
     this.text(text, final);
   }
 
@@ -265,49 +269,109 @@ export class ProfileImport {
     const t = this.tokenizer;
     const c = this.cols;
     const layout = this.layout;
-    if (!t || !c || !layout || this.refusal) return;
+    if (!c || !layout || this.refusal) return;
+    if (this.fast) {
+      this.fastText(text, final, c, layout.dataStartLine);
+      return;
+    }
+    if (!t) return;
     try {
       t.feed(text, final, (cells, line) => {
         if (line < layout.dataStartLine || this.refusal) return;
         if (cells.length === 1 && (cells[0] as string).trim() === '') return;
-        const xr = cells[c.x] ?? '';
-        const zr = cells[c.z] ?? '';
-        let xv = plainNumber(xr, this.decimal);
-        let zv = plainNumber(zr, this.decimal);
-        if (xv !== xv) {
-          const cell = readCell(xr, this.decimal);
-          xv = cell.kind === 'number' ? cell.value : NaN;
-        }
-        if (zv !== zv) {
-          const cell = readCell(zr, this.decimal);
-          zv = cell.kind === 'number' ? cell.value : NaN;
-        }
-        if (xv !== xv || zv !== zv) {
-          const bad = xv !== xv ? xr : zr;
-          this.quarantine.push({
-            line,
-            code: 'notNumber',
-            reason: `point "${(bad ?? '').trim().slice(0, 40)}" is not a number`,
-          });
-          return;
-        }
-        const key = c.slice >= 0 ? (cells[c.slice] ?? '').trim() : '';
-        if (key !== this.key) {
-          this.closeSlice();
-          this.key = key;
-          this.keyLine = line;
-          const s = readCell(key, this.decimal);
-          this.keyPos =
-            c.slice >= 0 ? (s.kind === 'number' ? s.value * c.sf : NaN) : (this.options.position ?? 0);
-        }
-        this.px.push(xv * c.xf);
-        this.pz.push(zv * c.zf);
+        this.point(
+          cells[c.x] ?? '',
+          cells[c.z] ?? '',
+          c.slice >= 0 ? (cells[c.slice] ?? '').trim() : '',
+          line,
+        );
       });
     } catch (e) {
       if (e instanceof UnclosedQuote)
         this.refusal = { message: `The file cannot be read: ${e.message}.`, line: e.line };
       else throw e;
     }
+  }
+
+  /**
+   * Profile files are millions of short number rows: without quotes in the file's head they are cut at line
+   * breaks and delimiters here, taking only the columns used, instead of a cell array per point. A quote turning
+   * up later makes that point unreadable (set aside with its line), never a silent misread.
+   */
+  private fastText(
+    text: string,
+    final: boolean,
+    c: NonNullable<ProfileImport['cols']>,
+    dataStart: number,
+  ): void {
+    const s = this.rest + text;
+    const n = s.length;
+    const delim = this.layout?.delimiter ?? ',';
+    const last = Math.max(c.x, c.z, c.slice);
+    let pos = 0;
+    while (pos < n) {
+      let nl = s.indexOf('\n', pos);
+      if (nl === -1) {
+        if (!final) break;
+        nl = n;
+      }
+      let end = nl;
+      if (end > pos && s.charCodeAt(end - 1) === 13) end--;
+      const line = this.fastLine++;
+      if (line >= dataStart && end > pos) {
+        let xr = '';
+        let zr = '';
+        let key = '';
+        let a = pos;
+        for (let f = 0; f <= last; f++) {
+          let b = s.indexOf(delim, a);
+          if (b === -1 || b > end) b = end;
+          if (f === c.x) xr = s.substring(a, b);
+          else if (f === c.z) zr = s.substring(a, b);
+          else if (f === c.slice) key = s.substring(a, b).trim();
+          if (b === end) break;
+          a = b + 1;
+        }
+        this.point(xr, zr, key, line);
+        if (this.refusal) return;
+      }
+      pos = nl + 1;
+    }
+    this.rest = final || pos >= n ? '' : s.substring(pos);
+  }
+
+  private point(xr: string, zr: string, key: string, line: number): void {
+    const c = this.cols;
+    if (!c) return;
+    let xv = plainNumber(xr, this.decimal);
+    let zv = plainNumber(zr, this.decimal);
+    if (xv !== xv) {
+      const cell = readCell(xr, this.decimal);
+      xv = cell.kind === 'number' ? cell.value : NaN;
+    }
+    if (zv !== zv) {
+      const cell = readCell(zr, this.decimal);
+      zv = cell.kind === 'number' ? cell.value : NaN;
+    }
+    if (xv !== xv || zv !== zv) {
+      const bad = xv !== xv ? xr : zr;
+      this.quarantine.push({
+        line,
+        code: 'notNumber',
+        reason: `point "${bad.trim().slice(0, 40)}" is not a number`,
+      });
+      return;
+    }
+    if (key !== this.key) {
+      this.closeSlice();
+      this.key = key;
+      this.keyLine = line;
+      const s = readCell(key, this.decimal);
+      this.keyPos =
+        c.slice >= 0 ? (s.kind === 'number' ? s.value * c.sf : NaN) : (this.options.position ?? 0);
+    }
+    this.px.push(xv * c.xf);
+    this.pz.push(zv * c.zf);
   }
 
   private closeSlice(): void {
