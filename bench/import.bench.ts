@@ -207,6 +207,11 @@ const result = {
   sink: sink === 12345 ? 1 : 0,
 };
 process.stdout.write(`${JSON.stringify(result)}\n`);
+// Targets are reported, not enforced here: the table figure includes the grader's own time (see docs/import.md).
+if (result.table.ratio > 1.5)
+  process.stdout.write(`import bench: table ratio ${result.table.ratio}× misses the 1.5× target\n`);
+if (result.profiles.ratio > 3)
+  process.stdout.write(`import bench: profile ratio ${result.profiles.ratio}× misses the 3× target\n`);
 process.stdout.write(
   `import: ${ROWS} rows → ${readings} readings, parse+validate+grade ${result.table.parseValidateGradeMs} ms = ${result.table.ratio}× papaparse (${result.table.papaparsePlainMs} ms); ` +
     `profiles: ${result.profiles.profilesPerSecond}/s, ${result.profiles.ratio}× a line fit; profile file parse ${result.profileFile.parseMBps} MB/s\n`,
