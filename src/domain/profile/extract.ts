@@ -18,6 +18,11 @@ import { fitCirclePratt, fitLineTrimmed, lineFromSums, sseFromSums, type Circle,
 
 export const QUALITY_TOLERANCE_MM = 0.05;
 export const QUALITY_THRESHOLD = 0.6;
+/**
+ * A toe radius comes from a short arc, and noise of a few hundredths of a millimetre moves it by tens of per cent
+ * (see docs/import.md): it is imported only from slices at or above this quality (plate scatter up to about 5 µm).
+ */
+export const RADIUS_QUALITY = 0.9;
 const TAU_MIN = 0.005;
 const OUTER_SHARE = 0.2;
 const MIN_PLATE_POINTS = 8;

@@ -11,7 +11,7 @@ import { sha256, type Hasher } from '../import/sha256.js';
 import { sniffLayout, type TableLayout } from '../import/sniff.js';
 import { binaryAt, ByteDecoder, type TextEncodingName } from '../import/text-decoding.js';
 import { isAngleUnit, UNIT_FACTOR, type LengthUnit } from '../import/units.js';
-import { extractSlice, type SliceGeometry } from './extract.js';
+import { extractSlice, RADIUS_QUALITY, type SliceGeometry } from './extract.js';
 
 export const MAX_PROFILE_BYTES = 1024 * 1024 * 1024;
 export const MAX_SLICES = 100_000;
@@ -110,7 +110,7 @@ export function sliceReadings(
       if (inRange(p, y)) v[p] = y;
     };
     put('toeAngle', t.toeAngle, r2);
-    put('toeRadius', t.toeRadius, r3);
+    if (g.quality >= RADIUS_QUALITY) put('toeRadius', t.toeRadius, r3);
     put('undercutDepth', t.undercutDepth, r3);
     if (i === 0) {
       put('reinforcementHeight', g.reinforcementHeight, r3);

@@ -7,6 +7,7 @@ import {
   fitCirclePratt,
   fitLine,
   QUALITY_THRESHOLD,
+  sliceReadings,
 } from '../../../src/domain/profile/index.js';
 import { toeHalfWidth, weldProfile, type WeldShape } from '../../support/weld-profile.js';
 
@@ -124,6 +125,42 @@ describe('extractSlice on generated welds', () => {
     expect(flat.problems[0]).toMatch(/no weld found/);
     const short = extractSlice(x.subarray(0, 10), new Float64Array(10));
     expect(short.problems[0]).toBe('only 10 points');
+  });
+});
+
+describe('readings from a slice', () => {
+  const ctx = { importId: 'p1', recordedAt: '2026-11-20T08:00:00Z' };
+
+  it('a clean slice gives both toes with angle and radius, and the section values on plate 1 toe', () => {
+    const r = sliceReadings(extractSlice(...xz(weldProfile(BASE))), 120, 7, ctx);
+    expect(r.map((x) => [x.id, x.toe, Object.keys(x.values).sort()])).toEqual([
+      [
+        'p1-7a',
+        { plate: 1, side: 'face' },
+        [
+          'angularMisalignment',
+          'linearMisalignment',
+          'reinforcementHeight',
+          'reinforcementWidth',
+          'toeAngle',
+          'toeRadius',
+          'undercutDepth',
+        ],
+      ],
+      ['p1-7b', { plate: 2, side: 'face' }, ['toeAngle', 'toeRadius', 'undercutDepth']],
+    ]);
+    expect(r[0]?.misalignmentBasis).toBe('faceSurface');
+  });
+
+  it('a slice with 0.01 mm noise gives no toe radius (quality below 0.9), and a flagged slice no reading', () => {
+    const noisy = extractSlice(...xz(weldProfile({ ...BASE, noise: 0.01, seed: 3 })));
+    expect(noisy.flagged).toBe(false);
+    const r = sliceReadings(noisy, 120, 7, ctx);
+    expect(r).toHaveLength(2);
+    expect(r.every((x) => x.values.toeRadius === undefined && x.values.toeAngle !== undefined)).toBe(true);
+    expect(
+      sliceReadings(extractSlice(...xz(weldProfile({ ...BASE, noise: 0.05, seed: 3 }))), 120, 7, ctx),
+    ).toEqual([]);
   });
 });
 
