@@ -209,10 +209,11 @@ function toeOf(
       toeZ = at(line, footX);
     }
     // Cap next to the steepest point: its circle's centre line with the toe circle's gives the common tangent.
-    const span = Math.max(6, Math.floor(Math.abs(crown - steep) / 2));
+    // A band of the cap next to the steepest point (at most 80 points): the face near the toe, not the crown.
+    const span = Math.min(80, Math.max(6, Math.floor(Math.abs(crown - steep) / 2)));
     const cLo = dir === 1 ? steep + 1 : steep - span;
     const cHi = dir === 1 ? steep + 1 + span : steep;
-    const cap = cLo >= 0 && cHi > cLo ? fitCirclePratt(x, z, cLo, cHi) : null;
+    const cap = cLo >= 0 && cHi > cLo ? fitCirclePratt(x, z, cLo, cHi, false) : null;
     if (cap) {
       const dx = cap.cx - circle.cx;
       const dz = cap.cz - circle.cz;

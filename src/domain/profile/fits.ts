@@ -146,6 +146,7 @@ export function fitCirclePratt(
   z: ArrayLike<number>,
   from: number,
   to: number,
+  withResidual = true,
 ): Circle | null {
   const n = to - from;
   if (n < 3) return null;
@@ -219,11 +220,13 @@ export function fitCirclePratt(
   const cx = cx0 + mx;
   const cz = cz0 + mz;
   let s = 0;
-  for (let i = from; i < to; i++) {
-    const d = Math.hypot((x[i] as number) - cx, (z[i] as number) - cz) - r;
-    s += d * d;
+  if (withResidual) {
+    for (let i = from; i < to; i++) {
+      const d = Math.hypot((x[i] as number) - cx, (z[i] as number) - cz) - r;
+      s += d * d;
+    }
   }
-  return { cx, cz, r, rms: Math.sqrt(s / n), n };
+  return { cx, cz, r, rms: withResidual ? Math.sqrt(s / n) : NaN, n };
 }
 
 /** Kåsa's algebraic circle fit (Kåsa 1976), kept for comparison in tests: a 3×3 linear least-squares problem. */
