@@ -8,6 +8,7 @@ import { getStore } from './services/store.js';
 const loadSeam = () => import('./screens/SeamScreen.js');
 const loadSetup = () => import('./screens/SeamSetupScreen.js');
 const loadGauge = () => import('./screens/GaugeScreen.js');
+const loadImport = () => import('./screens/ImportScreen.js');
 const loadSettings = () => import('./screens/SettingsScreen.js');
 const loadCaution = () => import('./screens/CautionScreen.js');
 const loadOutbox = () => import('./screens/OutboxScreen.js');
@@ -98,6 +99,7 @@ export function App() {
         {route.name === 'seamNew' ? <Lazy load={loadSetup} props={{}} /> : null}
         {route.name === 'seamEdit' ? <Lazy load={loadSetup} props={{ id: route.id }} /> : null}
         {route.name === 'gauge' ? <Lazy load={loadGauge} props={{ id: route.id }} /> : null}
+        {route.name === 'import' ? <Lazy load={loadImport} props={{ id: route.id }} /> : null}
         {route.name === 'settings' ? <Lazy load={loadSettings} props={{}} /> : null}
         {route.name === 'caution' ? <Lazy load={loadCaution} props={{}} /> : null}
         {route.name === 'outbox' ? <Lazy load={loadOutbox} props={{}} /> : null}

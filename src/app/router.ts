@@ -7,6 +7,7 @@ export type Route =
   | { readonly name: 'seam'; readonly id: string }
   | { readonly name: 'seamEdit'; readonly id: string }
   | { readonly name: 'gauge'; readonly id: string }
+  | { readonly name: 'import'; readonly id: string }
   | { readonly name: 'settings' }
   | { readonly name: 'outbox' }
   | { readonly name: 'caution' };
@@ -18,6 +19,7 @@ export function parseRoute(hash: string): Route {
   if (head === 'seam' && id) {
     if (sub === 'edit') return { name: 'seamEdit', id };
     if (sub === 'gauge') return { name: 'gauge', id };
+    if (sub === 'import') return { name: 'import', id };
     return { name: 'seam', id };
   }
   if (head === 'settings') return { name: 'settings' };
@@ -38,6 +40,8 @@ export function hrefOf(route: Route): string {
       return `#/seam/${encodeURIComponent(route.id)}/edit`;
     case 'gauge':
       return `#/seam/${encodeURIComponent(route.id)}/gauge`;
+    case 'import':
+      return `#/seam/${encodeURIComponent(route.id)}/import`;
     case 'settings':
       return '#/settings';
     case 'outbox':

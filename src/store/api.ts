@@ -167,6 +167,25 @@ export interface ImportReport {
   readonly refused: readonly { readonly path: string; readonly reason: string }[];
 }
 
+/** One scanner import as this device keeps it: enough to trace each of its readings to the file. */
+export interface ImportRecord {
+  readonly importId: string;
+  readonly seamId: string;
+  readonly kind: 'table' | 'profiles';
+  readonly fileName: string;
+  readonly bytes: number;
+  /** SHA-256 of the file as read, lower-case hex. */
+  readonly sha256: string;
+  readonly encoding?: string;
+  /** The mapping used, as JSON (tables). */
+  readonly mapping?: string;
+  readonly readingCount: number;
+  /** Rows or slices set aside, by the user's decision not imported, with the first reasons. */
+  readonly quarantined: number;
+  readonly quarantineSample?: readonly { readonly line: number; readonly reason: string }[];
+  readonly importedAt: string;
+}
+
 export interface Store {
   health(): Promise<StoreHealth>;
   listSeams(): Promise<SeamRecord[]>;
@@ -192,6 +211,13 @@ export interface Store {
   listReadings(seamId: string, afterLocalSeq?: number): Promise<ReadingRecord[]>;
   /** Append-only: a reading id that exists already is refused. Corrections and withdrawals are new readings. */
   appendReading(seamId: string, reading: Reading): Promise<ReadingRecord>;
+  /**
+   * Appends a scanner import's readings and its record in one transaction: all or nothing. The readings must name
+   * the import as their source; they are checked with the grader's rules against the seam first.
+   */
+  appendImport(seamId: string, record: ImportRecord, readings: readonly Reading[]): Promise<ImportRecord>;
+  /** The imports made into a seam on this device, oldest first. */
+  listImports(seamId: string): Promise<ImportRecord[]>;
   /** The seam with its rounds and readings, as the grader takes it (readings may be empty). */
   seamFile(seamId: string): Promise<SeamFile | undefined>;
   outboxCount(): Promise<number>;

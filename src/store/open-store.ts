@@ -6,6 +6,7 @@ import { Connection } from './connection.js';
 import type { StoreContext } from './context.js';
 import { loadDemo, removeDemo } from './demo-namespace.js';
 import { uuidv7 } from './ids.js';
+import { appendImport, listImports } from './import-writes.js';
 import { appendReading } from './reading-writes.js';
 import * as reads from './reads.js';
 import { DEFAULT_DB_NAME } from './schema.js';
@@ -50,6 +51,8 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     answerChecklist: (seamId, round, item, answer) => answerChecklist(ctx, seamId, round, item, answer),
     listReadings: (seamId, afterLocalSeq) => reads.listReadings(ctx, seamId, afterLocalSeq),
     appendReading: (seamId, reading) => appendReading(ctx, seamId, reading),
+    appendImport: (seamId, record, readings) => appendImport(ctx, seamId, record, readings),
+    listImports: (seamId) => listImports(ctx, seamId),
     seamFile: (seamId) => reads.seamFile(ctx, seamId),
     outboxCount: () => reads.outboxCount(ctx),
     outboxEntries: (limit) => reads.outboxEntries(ctx, limit),

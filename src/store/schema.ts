@@ -2,6 +2,7 @@
 // older app version is upgraded in place: migrations only add and back-fill, they never drop data.
 import type { DBSchema, IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
 import type {
+  ImportRecord,
   Namespace,
   OutboxEntry,
   ReadingRecord,
@@ -18,7 +19,9 @@ export type MetaRecord =
   | { readonly key: 'created'; readonly createdAt: string }
   | { readonly key: 'localSeq'; readonly value: number }
   /** The last batch number this device sealed (version 3). */
-  | { readonly key: 'batchSeq'; readonly value: number };
+  | { readonly key: 'batchSeq'; readonly value: number }
+  /** A scanner import: the file's hash, name and counts (kept in meta, so no schema change was needed). */
+  | { readonly key: `import:${string}`; readonly record: ImportRecord };
 
 export interface BeadbookDB extends DBSchema {
   meta: { key: MetaRecord['key']; value: MetaRecord };

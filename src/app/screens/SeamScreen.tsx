@@ -261,6 +261,9 @@ export default function SeamScreen({ id }: { readonly id: string }) {
           <a class="button primary big" href={hrefOf({ name: 'gauge', id })}>
             Gauge readings
           </a>
+          <a class="button" href={hrefOf({ name: 'import', id })}>
+            Import scanner file
+          </a>
           <a class="button" href={hrefOf({ name: 'seamEdit', id })}>
             Edit set-up
           </a>

@@ -1,0 +1,233 @@
+// One data row to readings, or to a quarantine reason. The checks are the grader's own rules for a reading
+// (ranges and units from model/parameters, what goes together), applied per row so a bad row is set aside with
+// its line and reason instead of failing the file; test/unit/import checks that every accepted row passes
+// parseSeamFile.
+import { PARAMETERS, type ParameterName } from '../model/parameters.js';
+import type { Reading, Seam, Values } from '../model/seam-file.js';
+import { plainNumber, readCell } from './cells.js';
+import type { CompiledMapping, CompiledValue } from './compile-mapping.js';
+import type { ImportMapping } from './mapping.js';
+
+export interface ImportContext {
+  /** Names this import in each reading's source; at most 40 characters so reading ids stay within 64. */
+  readonly importId: string;
+  /** When given, rows are checked against the seam (its length, joint and plates) as the grader would. */
+  readonly seam?: Seam;
+  readonly round?: number;
+  readonly recordedAt: string;
+  readonly examiner?: { readonly name: string; readonly qualification?: string };
+  readonly device?: string;
+}
+
+export type QuarantineCode =
+  'fields' | 'position' | 'notNumber' | 'nan' | 'decimalMark' | 'range' | 'toe' | 'pairing' | 'noValues';
+
+export interface QuarantinedRow {
+  readonly line: number;
+  readonly code: QuarantineCode;
+  readonly reason: string;
+}
+
+const ACCEPTED = { ok: true } as const;
+
+type RowOutcome =
+  typeof ACCEPTED | { readonly ok: false; readonly code: QuarantineCode; readonly reason: string };
+
+const fmt = (x: number) => String(Number(x.toPrecision(6)));
+
+function unitLabel(p: ParameterName): string {
+  return PARAMETERS[p].unit === 'deg' ? '°' : ' mm';
+}
+
+function rangeProblem(v: CompiledValue, value: number, raw: number): string | null {
+  const spec = PARAMETERS[v.parameter];
+  const low = spec.minExclusive ? value <= spec.min : value < spec.min;
+  if (!low && value <= spec.max) return null;
+  const u = unitLabel(v.parameter);
+  const bound = low
+    ? `${spec.minExclusive ? 'greater than' : 'at least'} ${spec.min}${u}`
+    : `at most ${spec.max}${u}`;
+  let hint = '';
+  if (v.unit === 'deg' && v.parameter === 'toeAngle' && raw >= 0 && raw <= Math.PI)
+    hint = ': the column looks like radians';
+  else if (v.unit === 'mm' && !low && raw > spec.max && raw / 1000 <= spec.max)
+    hint = ': the column looks like micrometres';
+  const shown = v.flank
+    ? `${v.parameter} (from flank angle ${fmt(raw)}${v.unit === 'deg' ? '°' : ` ${v.unit}`})`
+    : v.parameter;
+  return `"${v.name}": ${shown} ${fmt(value)}${u} must be ${bound}${hint}`;
+}
+
+export class RowReader {
+  private readonly sampling: Reading['sampling'];
+  private readonly side: 'face' | 'root';
+  private readonly instrument: Reading['instrument'];
+  private readonly source: Reading['source'];
+  private readonly round: number;
+  private readonly toe1: NonNullable<Reading['toe']>;
+  private readonly toe2: NonNullable<Reading['toe']>;
+
+  constructor(
+    private readonly compiled: CompiledMapping,
+    private readonly mapping: ImportMapping,
+    private readonly ctx: ImportContext,
+  ) {
+    this.sampling = mapping.sampling ?? 'atPitch';
+    this.side = mapping.side ?? 'face';
+    const inst = mapping.instrument;
+    this.instrument = {
+      id: inst?.id ?? 'scanner',
+      kind: 'scanner',
+      ...(inst?.resolutionMm !== undefined ? { resolutionMm: inst.resolutionMm } : {}),
+      ...(inst?.resolutionDeg !== undefined ? { resolutionDeg: inst.resolutionDeg } : {}),
+    };
+    this.source = { kind: 'import', importId: ctx.importId };
+    this.round = ctx.round ?? 1;
+    this.toe1 = { plate: 1, side: this.side };
+    this.toe2 = { plate: 2, side: this.side };
+  }
+
+  /** Appends the row's readings to `out`, or returns why the row is set aside (then `out` is untouched). */
+  read(cells: readonly string[], line: number, out: Reading[]): RowOutcome {
+    const c = this.compiled;
+    if (cells.length !== c.width) {
+      const extraEmpty = cells.length > c.width && cells.slice(c.width).every((x) => x.trim() === '');
+      if (!extraEmpty) {
+        return {
+          ok: false,
+          code: 'fields',
+          reason: `has ${cells.length} field${cells.length === 1 ? '' : 's'} where the table has ${c.width}`,
+        };
+      }
+    }
+    const posRaw = cells[c.position.column] ?? '';
+    let posValue = plainNumber(posRaw, this.mapping.decimal ?? '.');
+    if (posValue !== posValue) {
+      const posCell = readCell(posRaw, this.mapping.decimal ?? '.');
+      if (posCell.kind !== 'number') {
+        return {
+          ok: false,
+          code: 'position',
+          reason: `"${c.position.name}": ${describe(posCell.kind, posRaw, 'a position')}`,
+        };
+      }
+      posValue = posCell.value;
+    }
+    const position = posValue * c.position.factor + (this.mapping.positionOffset ?? 0);
+    const seamLength = this.ctx.seam?.length;
+    if (!(position >= 0) || (seamLength !== undefined && position > seamLength)) {
+      return {
+        ok: false,
+        code: 'position',
+        reason: `"${c.position.name}": position ${fmt(position)} mm lies ${position < 0 ? 'before the start mark' : `beyond the seam's length of ${seamLength} mm`}`,
+      };
+    }
+    let rowPlate: 1 | 2 | 0 = this.mapping.toe?.plate ?? 0;
+    if (c.toeColumn) {
+      const code = (cells[c.toeColumn.column] ?? '').trim().toLowerCase();
+      const plate = c.toeCodes.get(code);
+      if (!plate) {
+        return {
+          ok: false,
+          code: 'toe',
+          reason: `"${c.toeColumn.name}": "${code}" names no toe; known codes: ${[...c.toeCodes.keys()].join(', ')}`,
+        };
+      }
+      rowPlate = plate;
+    }
+    // Values per slot (0: the cross-section, 1 and 2: the toes), made only when a slot gets a value.
+    let slot0: Partial<Record<ParameterName, number>> | null = null;
+    let slot1: Partial<Record<ParameterName, number>> | null = null;
+    let slot2: Partial<Record<ParameterName, number>> | null = null;
+    const decimal = this.mapping.decimal ?? '.';
+    let count = 0;
+    let hasHeight = false;
+    let hasWidth = false;
+    let legs = 0;
+    for (const v of c.values) {
+      const raw = cells[v.column] ?? '';
+      let num = plainNumber(raw, decimal);
+      if (num !== num) {
+        const cell = readCell(raw, decimal);
+        if (cell.kind === 'empty') continue;
+        if (cell.kind !== 'number') {
+          return {
+            ok: false,
+            code: cell.kind === 'nan' ? 'nan' : cell.kind === 'otherMark' ? 'decimalMark' : 'notNumber',
+            reason: `"${v.name}": ${describe(cell.kind, raw, 'a number', decimal)}`,
+          };
+        }
+        num = cell.value;
+      }
+      let value = num * v.factor;
+      if (v.flank) value = 180 - value;
+      const spec = PARAMETERS[v.parameter];
+      if ((spec.minExclusive ? value <= spec.min : value < spec.min) || value > spec.max) {
+        return { ok: false, code: 'range', reason: rangeProblem(v, value, num) ?? 'out of range' };
+      }
+      const slot =
+        v.plate !== 0 ? v.plate : spec.per === 'toe' || c.toeColumn || this.mapping.toe ? rowPlate : 0;
+      if (slot === 1) (slot1 ??= {})[v.parameter] = value;
+      else if (slot === 2) (slot2 ??= {})[v.parameter] = value;
+      else (slot0 ??= {})[v.parameter] = value;
+      if (v.parameter === 'reinforcementHeight') hasHeight = true;
+      else if (v.parameter === 'reinforcementWidth') hasWidth = true;
+      else if (v.parameter === 'leg1' || v.parameter === 'leg2') legs++;
+      count++;
+    }
+    if (count === 0) return { ok: false, code: 'noValues', reason: 'holds no measured value' };
+    if (hasHeight && !hasWidth) {
+      return {
+        ok: false,
+        code: 'pairing',
+        reason: 'has a reinforcement height without its width (the limit uses the width b)',
+      };
+    }
+    if (legs === 1) return { ok: false, code: 'pairing', reason: 'has one leg length without the other' };
+    // A plain literal, then the optional fields: spreading per row made every reading a slow dictionary object.
+    const make = (suffix: string, values: Values, toe: Reading['toe']): Reading => {
+      const r: { -readonly [K in keyof Reading]: Reading[K] } = {
+        id: `${this.ctx.importId}-${line}${suffix}`,
+        round: this.round,
+        position,
+        sampling: this.sampling,
+        values,
+        instrument: this.instrument,
+        source: this.source,
+        recordedAt: this.ctx.recordedAt,
+      };
+      if (toe) r.toe = toe;
+      else r.side = this.side;
+      if (this.ctx.seam) r.seamId = this.ctx.seam.id;
+      if (values.linearMisalignment !== undefined && this.mapping.misalignmentBasis) {
+        r.misalignmentBasis = this.mapping.misalignmentBasis;
+      }
+      if (this.ctx.examiner) r.examiner = this.ctx.examiner;
+      if (this.ctx.device) r.device = this.ctx.device;
+      return r;
+    };
+    if (slot1) out.push(make('a', slot1, this.toe1));
+    if (slot2) out.push(make('b', slot2, this.toe2));
+    if (slot0) out.push(make('s', slot0, undefined));
+    return ACCEPTED;
+  }
+}
+
+function describe(
+  kind: 'empty' | 'nan' | 'otherMark' | 'text',
+  raw: string,
+  what: string,
+  decimal: '.' | ',' = '.',
+): string {
+  const shown = raw.trim().length > 40 ? `${raw.trim().slice(0, 40)}…` : raw.trim();
+  switch (kind) {
+    case 'empty':
+      return `is empty; it needs ${what}`;
+    case 'nan':
+      return `holds "${shown}": the scanner found no value`;
+    case 'otherMark':
+      return `holds "${shown}" with a decimal ${decimal === '.' ? 'comma' : 'point'}, but this file's decimal mark is the ${decimal === '.' ? 'point' : 'comma'}`;
+    default:
+      return `holds "${shown}", which is not ${what}`;
+  }
+}

@@ -1,0 +1,282 @@
+// Least-squares fits over typed arrays, without allocation: straight lines (plain and trimmed) and circles.
+
+export interface Line {
+  /** z = a + b·x */
+  readonly a: number;
+  readonly b: number;
+}
+
+/** Ordinary least-squares line z = a + b·x over points [from, to). Returns null for fewer than 2 distinct x. */
+export function fitLine(x: ArrayLike<number>, z: ArrayLike<number>, from: number, to: number): Line | null {
+  let sx = 0,
+    sz = 0,
+    sxx = 0,
+    sxz = 0;
+  const n = to - from;
+  const x0 = x[from] ?? 0;
+  for (let i = from; i < to; i++) {
+    const xi = (x[i] as number) - x0;
+    const zi = z[i] as number;
+    sx += xi;
+    sz += zi;
+    sxx += xi * xi;
+    sxz += xi * zi;
+  }
+  return lineFromSums(n, sx, sz, sxx, sxz, x0);
+}
+
+export function lineFromSums(
+  n: number,
+  sx: number,
+  sz: number,
+  sxx: number,
+  sxz: number,
+  x0: number,
+): Line | null {
+  const det = n * sxx - sx * sx;
+  if (n < 2 || !(Math.abs(det) > 1e-18)) return null;
+  const b = (n * sxz - sx * sz) / det;
+  const a0 = (sz - b * sx) / n;
+  return { a: a0 - b * x0, b };
+}
+
+/** Root-mean-square vertical residual of points [from, to) about a line. */
+export function lineRms(
+  x: ArrayLike<number>,
+  z: ArrayLike<number>,
+  from: number,
+  to: number,
+  l: Line,
+): number {
+  let s = 0;
+  for (let i = from; i < to; i++) {
+    const r = (z[i] as number) - l.a - l.b * (x[i] as number);
+    s += r * r;
+  }
+  return to > from ? Math.sqrt(s / (to - from)) : 0;
+}
+
+/** Residual sum of squares of points with the given sums (x and z taken from x0, z0) about z = a + b·x, in closed form. */
+export function sseFromSums(
+  n: number,
+  sx: number,
+  sz: number,
+  sxx: number,
+  sxz: number,
+  szz: number,
+  x0: number,
+  z0: number,
+  l: Line,
+): number {
+  // The line in the shifted frame: z − z0 = a' + b·(x − x0).
+  const a = l.a + l.b * x0 - z0;
+  const b = l.b;
+  const sse = szz - 2 * a * sz - 2 * b * sxz + n * a * a + 2 * a * b * sx + b * b * sxx;
+  return sse > 0 ? sse : 0;
+}
+
+/**
+ * Trimmed least squares: fit, then refit over the points within max(3·rms, floor) of the line, twice. Robust to
+ * spatter, dropouts and the odd spike, which a scanner's plate segment may hold. The scatter comes from the sums
+ * in closed form, so each round is one pass over the points.
+ */
+export function fitLineTrimmed(
+  x: ArrayLike<number>,
+  z: ArrayLike<number>,
+  from: number,
+  to: number,
+  floor: number,
+): { line: Line; rms: number; inliers: number } | null {
+  const x0 = x[from] as number;
+  const z0 = z[from] as number;
+  let line: Line | null = null;
+  let rms = 0;
+  let inliers = 0;
+  for (let pass = 0; pass < 3; pass++) {
+    const tol = Math.max(3 * rms, floor);
+    let sx = 0,
+      sz = 0,
+      sxx = 0,
+      sxz = 0,
+      szz = 0,
+      n = 0;
+    const a = line?.a ?? 0;
+    const b = line?.b ?? 0;
+    for (let i = from; i < to; i++) {
+      const xa = x[i] as number;
+      const za = z[i] as number;
+      if (line) {
+        const r = za - a - b * xa;
+        if (r > tol || r < -tol) continue;
+      }
+      const xi = xa - x0;
+      const zi = za - z0;
+      sx += xi;
+      sz += zi;
+      sxx += xi * xi;
+      sxz += xi * zi;
+      szz += zi * zi;
+      n++;
+    }
+    const next = lineFromSums(n, sx, sz + n * z0, sxx, sxz + sx * z0, x0);
+    if (!next) break;
+    line = next;
+    inliers = n;
+    rms = Math.sqrt(sseFromSums(n, sx, sz, sxx, sxz, szz, x0, z0, next) / n);
+  }
+  return line ? { line, rms, inliers } : null;
+}
+
+export interface Circle {
+  readonly cx: number;
+  readonly cz: number;
+  readonly r: number;
+  /** RMS of the points' distances to the circle. */
+  readonly rms: number;
+  readonly n: number;
+}
+
+/**
+ * Pratt's algebraic circle fit (Pratt 1987, "Direct least-squares fitting of algebraic surfaces"), solved by
+ * Newton's method on its characteristic polynomial as in Chernov's "Circular and linear regression" (2010), §5.
+ * Unlike Kåsa's fit it is not biased towards small radii on short arcs.
+ */
+export function fitCirclePratt(
+  x: ArrayLike<number>,
+  z: ArrayLike<number>,
+  from: number,
+  to: number,
+  withResidual = true,
+): Circle | null {
+  const n = to - from;
+  if (n < 3) return null;
+  let mx = 0,
+    mz = 0;
+  for (let i = from; i < to; i++) {
+    mx += x[i] as number;
+    mz += z[i] as number;
+  }
+  mx /= n;
+  mz /= n;
+  let Mxx = 0,
+    Myy = 0,
+    Mxy = 0,
+    Mxz = 0,
+    Myz = 0,
+    Mzz = 0;
+  for (let i = from; i < to; i++) {
+    const xi = (x[i] as number) - mx;
+    const yi = (z[i] as number) - mz;
+    const zi = xi * xi + yi * yi;
+    Mxy += xi * yi;
+    Mxx += xi * xi;
+    Myy += yi * yi;
+    Mxz += xi * zi;
+    Myz += yi * zi;
+    Mzz += zi * zi;
+  }
+  Mxx /= n;
+  Myy /= n;
+  Mxy /= n;
+  Mxz /= n;
+  Myz /= n;
+  Mzz /= n;
+  const Mz = Mxx + Myy;
+  const covXY = Mxx * Myy - Mxy * Mxy;
+  const Mxz2 = Mxz * Mxz;
+  const Myz2 = Myz * Myz;
+  const A2 = 4 * covXY - 3 * Mz * Mz - Mzz;
+  const A1 = Mzz * Mz + 4 * covXY * Mz - Mxz2 - Myz2 - Mz * Mz * Mz;
+  const A0 = Mxz2 * Myy + Myz2 * Mxx - Mzz * covXY - 2 * Mxz * Myz * Mxy + Mz * Mz * covXY;
+  const A22 = A2 + A2;
+  let xnew = 0;
+  let ynew = 1e20;
+  for (let iter = 0; iter < 20; iter++) {
+    const yold = ynew;
+    ynew = A0 + xnew * (A1 + xnew * (A2 + 4 * xnew * xnew));
+    if (Math.abs(ynew) > Math.abs(yold)) {
+      xnew = 0;
+      break;
+    }
+    const Dy = A1 + xnew * (A22 + 16 * xnew * xnew);
+    const xold = xnew;
+    xnew = xold - ynew / Dy;
+    if (!Number.isFinite(xnew)) {
+      xnew = 0;
+      break;
+    }
+    if (Math.abs((xnew - xold) / xnew) < 1e-12) break;
+    if (xnew < 0) {
+      xnew = 0;
+      break;
+    }
+  }
+  const det = xnew * xnew - xnew * Mz + covXY;
+  if (!(Math.abs(det) > 1e-30)) return null;
+  const cx0 = (Mxz * (Myy - xnew) - Myz * Mxy) / det / 2;
+  const cz0 = (Myz * (Mxx - xnew) - Mxz * Mxy) / det / 2;
+  const r = Math.sqrt(cx0 * cx0 + cz0 * cz0 + Mz + 2 * xnew);
+  if (!Number.isFinite(r)) return null;
+  const cx = cx0 + mx;
+  const cz = cz0 + mz;
+  let s = 0;
+  if (withResidual) {
+    for (let i = from; i < to; i++) {
+      const d = Math.hypot((x[i] as number) - cx, (z[i] as number) - cz) - r;
+      s += d * d;
+    }
+  }
+  return { cx, cz, r, rms: withResidual ? Math.sqrt(s / n) : NaN, n };
+}
+
+/** Kåsa's algebraic circle fit (Kåsa 1976), kept for comparison in tests: a 3×3 linear least-squares problem. */
+export function fitCircleKasa(
+  x: ArrayLike<number>,
+  z: ArrayLike<number>,
+  from: number,
+  to: number,
+): Circle | null {
+  const n = to - from;
+  if (n < 3) return null;
+  let mx = 0,
+    mz = 0;
+  for (let i = from; i < to; i++) {
+    mx += x[i] as number;
+    mz += z[i] as number;
+  }
+  mx /= n;
+  mz /= n;
+  let suu = 0,
+    svv = 0,
+    suv = 0,
+    suuu = 0,
+    svvv = 0,
+    suvv = 0,
+    svuu = 0;
+  for (let i = from; i < to; i++) {
+    const u = (x[i] as number) - mx;
+    const v = (z[i] as number) - mz;
+    suu += u * u;
+    svv += v * v;
+    suv += u * v;
+    suuu += u * u * u;
+    svvv += v * v * v;
+    suvv += u * v * v;
+    svuu += v * u * u;
+  }
+  const b1 = (suuu + suvv) / 2;
+  const b2 = (svvv + svuu) / 2;
+  const det = suu * svv - suv * suv;
+  if (!(Math.abs(det) > 1e-30)) return null;
+  const uc = (b1 * svv - b2 * suv) / det;
+  const vc = (suu * b2 - suv * b1) / det;
+  const r = Math.sqrt(uc * uc + vc * vc + (suu + svv) / n);
+  const cx = uc + mx;
+  const cz = vc + mz;
+  let s = 0;
+  for (let i = from; i < to; i++) {
+    const d = Math.hypot((x[i] as number) - cx, (z[i] as number) - cz) - r;
+    s += d * d;
+  }
+  return { cx, cz, r, rms: Math.sqrt(s / n), n };
+}

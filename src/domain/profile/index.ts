@@ -1,0 +1,3 @@
+export * from './fits.js';
+export * from './extract.js';
+export * from './profile-import.js';

@@ -1,0 +1,4 @@
+import { expose } from 'comlink';
+import { importApi } from './import-api.js';
+
+expose(importApi);
