@@ -42,7 +42,7 @@ const readingRecord = obj('reading record', {
 const outboxEntry = obj('outbox entry', {
   seq: sequence,
   recordId: text(64, 'an id'),
-  kind: choice(['seamSetup', 'round', 'checklistAnswer', 'reading']),
+  kind: choice(['seamSetup', 'round', 'checklistAnswer', 'reading', 'tagLink']),
   seamId: text(64, 'an id'),
   body: v.record(v.string(), v.unknown(), 'must be an object'),
   createdAt: isoTimestamp(),

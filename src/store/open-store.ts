@@ -11,6 +11,7 @@ import * as reads from './reads.js';
 import { DEFAULT_DB_NAME } from './schema.js';
 import * as sendLog from './send-log.js';
 import { answerChecklist, saveSeam, setSummary, startRound } from './seam-writes.js';
+import * as tags from './tag-links.js';
 
 export interface OpenStoreOptions {
   /** Database name; tests give each case its own. */
@@ -64,6 +65,11 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     acknowledge: (recordIds) => sendLog.acknowledge(ctx, recordIds),
     exportBackup: () => exportBackup(ctx),
     importBackup: (data) => importBackup(ctx, data),
+    lookupTag: (tag) => tags.lookupTag(ctx, tag),
+    listTagLinks: () => tags.listTagLinks(ctx),
+    seamTags: (seamId) => tags.seamTags(ctx, seamId),
+    linkTag: (seamId, tag, via, confirmedFrom) => tags.linkTag(ctx, seamId, tag, via, confirmedFrom),
+    unlinkTag: (seamId, tag) => tags.unlinkTag(ctx, seamId, tag),
     loadDemo: () => loadDemo(ctx),
     removeDemo: () => removeDemo(ctx),
     close: () => conn.close(),

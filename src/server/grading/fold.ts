@@ -78,6 +78,9 @@ export function foldSeam(material: SeamMaterial): FoldedSeam {
       case 'reading':
         readings.push({ recordId: r.id, reading: bodyOf<'reading'>(r).reading });
         break;
+      case 'tagLink':
+        // Which tag leads to the seam: kept as a record, nothing to grade and nothing left out.
+        break;
       default:
         leftOut.push({ recordId: r.id, reason: `records of kind "${r.kind}" are not graded` });
     }
