@@ -21,8 +21,11 @@ export type RecordKind = (typeof RECORD_KINDS)[number];
 
 const id = text(64, 'an id');
 export const TAG_ACTIONS = ['link', 'unlink'] as const;
-/** How the tag was read: camera, a photo, typed by hand; `confirmedMove` for the unlink half of a move. */
-export const TAG_VIA = ['camera', 'photo', 'typed', 'confirmedMove'] as const;
+/**
+ * How the tag was read: camera, a photo, typed by hand, or made for a printed label; `confirmedMove` for the unlink
+ * half of a move.
+ */
+export const TAG_VIA = ['camera', 'photo', 'typed', 'printed', 'confirmedMove'] as const;
 const checklistAnswer = roundSchema.entries.checklist.entries.crack.wrapped;
 
 /** What each kind of record carries (the device store's outbox bodies). Device times are informative only. */

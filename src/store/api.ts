@@ -94,7 +94,7 @@ export interface OutboxBodies {
 }
 
 /** How a tag was read. */
-export type TagVia = 'camera' | 'photo' | 'typed';
+export type TagVia = 'camera' | 'photo' | 'typed' | 'printed';
 
 /** A tag fixed to the work, linked to one seam (version 4). Keyed by the tag's match key. */
 export interface TagLinkRecord {

@@ -3,4 +3,3 @@ export { openStore, type OpenStoreOptions } from './open-store.js';
 export { StoreError, type StoreErrorCode } from './errors.js';
 export { uuidv7 } from './ids.js';
 export type * from './api.js';
-export { TagConflictError } from './tag-links.js';

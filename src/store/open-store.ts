@@ -11,7 +11,10 @@ import * as reads from './reads.js';
 import { DEFAULT_DB_NAME } from './schema.js';
 import * as sendLog from './send-log.js';
 import { answerChecklist, saveSeam, setSummary, startRound } from './seam-writes.js';
-import * as tags from './tag-links.js';
+import type { TagLinkRecord } from './api.js';
+
+// Linking rules load on first use: the Seams list needs only the links themselves, and first paint stays small.
+const tagWrites = () => import('./tag-links.js');
 
 export interface OpenStoreOptions {
   /** Database name; tests give each case its own. */
@@ -65,11 +68,13 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     acknowledge: (recordIds) => sendLog.acknowledge(ctx, recordIds),
     exportBackup: () => exportBackup(ctx),
     importBackup: (data) => importBackup(ctx, data),
-    lookupTag: (tag) => tags.lookupTag(ctx, tag),
-    listTagLinks: () => tags.listTagLinks(ctx),
-    seamTags: (seamId) => tags.seamTags(ctx, seamId),
-    linkTag: (seamId, tag, via, confirmedFrom) => tags.linkTag(ctx, seamId, tag, via, confirmedFrom),
-    unlinkTag: (seamId, tag) => tags.unlinkTag(ctx, seamId, tag),
+    lookupTag: async (tag) => (await tagWrites()).lookupTag(ctx, tag),
+    listTagLinks: (): Promise<TagLinkRecord[]> =>
+      ctx.conn.run(['tagLinks'], 'readonly', (tx) => tx.store.getAll()),
+    seamTags: async (seamId) => (await tagWrites()).seamTags(ctx, seamId),
+    linkTag: async (seamId, tag, via, confirmedFrom) =>
+      (await tagWrites()).linkTag(ctx, seamId, tag, via, confirmedFrom),
+    unlinkTag: async (seamId, tag) => (await tagWrites()).unlinkTag(ctx, seamId, tag),
     loadDemo: () => loadDemo(ctx),
     removeDemo: () => removeDemo(ctx),
     close: () => conn.close(),

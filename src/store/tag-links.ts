@@ -6,7 +6,6 @@ import type { Namespace, SeamRecord, TagLinkRecord, TagLookup, TagVia } from './
 import type { StoreContext } from './context.js';
 import { StoreError } from './errors.js';
 import { entryForAdd, outboxEntry } from './records.js';
-import { seamNotFound } from './seam-writes.js';
 
 /** The tag belongs to another seam and the move was not confirmed for it. */
 export class TagConflictError extends StoreError {
@@ -20,6 +19,9 @@ export class TagConflictError extends StoreError {
     );
   }
 }
+
+const seamNotFound = (seamId: string) =>
+  new StoreError('notFound', `No seam with id "${seamId}" is stored on this device.`);
 
 function cleanTag(raw: string): { tag: string; key: string } {
   const read = readTagText(raw);
@@ -39,9 +41,6 @@ export async function lookupTag(ctx: StoreContext, raw: string): Promise<TagLook
     return { tag, key, link, setupSeamIds };
   });
 }
-
-export const listTagLinks = (ctx: StoreContext): Promise<TagLinkRecord[]> =>
-  ctx.conn.run(['tagLinks'], 'readonly', (tx) => tx.store.getAll());
 
 export const seamTags = (ctx: StoreContext, seamId: string): Promise<TagLinkRecord[]> =>
   ctx.conn.run(['tagLinks'], 'readonly', (tx) => tx.store.index('bySeam').getAll(seamId));

@@ -1,7 +1,8 @@
 // Tag links in the store: each link and unlink is recorded in the outbox with the change (live seams only), a
 // tag owned by another seam moves only on a confirmation naming that seam, and the demo's links leave with it.
 import { describe, expect, it } from 'vitest';
-import { StoreError, TagConflictError } from '../../src/store/index.js';
+import { StoreError } from '../../src/store/index.js';
+import { TagConflictError } from '../../src/store/tag-links.js';
 import { butt, freshStore } from './support.js';
 
 const tagEvents = async (store: Awaited<ReturnType<typeof freshStore>>) =>
