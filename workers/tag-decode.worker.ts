@@ -16,13 +16,13 @@ function luma(image: ImageBitmap, scale: number) {
 }
 
 const api: TagDecodeApi<ImageBitmap> = {
-  decodeImage(image, maxSide = 4096): DecodedTag | null {
+  decodeImage(image, maxSide = 4096, options = {}): DecodedTag | null {
     try {
       const first = Math.min(1, maxSide / Math.max(image.width, image.height));
       // A photo whose tag fills much of the frame reads better smaller still.
       const scales = first < 1 ? [first, first / 2] : [1];
       for (const scale of scales) {
-        const found = decode(luma(image, scale));
+        const found = decode(luma(image, scale), options);
         if (found) return found;
       }
       return null;

@@ -2,7 +2,7 @@
 // zxing worker otherwise (or when the detector finds nothing). The worker starts on the first image, so its code
 // is neither downloaded nor parsed before the user scans.
 import { transfer, wrap, type Remote } from 'comlink';
-import type { DecodedTag, TagDecodeApi, TagSymbol } from '../../../workers/tag-decode-api.js';
+import type { DecodedTag, DecodeOptions, TagDecodeApi, TagSymbol } from '../../../workers/tag-decode-api.js';
 
 export type { DecodedTag, TagSymbol };
 
@@ -55,7 +55,11 @@ function nativeDetector(): Promise<BarcodeDetectorLike | null> {
  * Reads a tag from the bitmap, which is handed over (transferred or closed) in every case. `maxSide` scales a
  * large photo down before zxing reads it.
  */
-export async function decodeBitmap(bitmap: ImageBitmap, maxSide?: number): Promise<DecodedTag | null> {
+export async function decodeBitmap(
+  bitmap: ImageBitmap,
+  maxSide?: number,
+  options?: DecodeOptions,
+): Promise<DecodedTag | null> {
   const detector = await nativeDetector();
   if (detector) {
     try {
@@ -69,7 +73,7 @@ export async function decodeBitmap(bitmap: ImageBitmap, maxSide?: number): Promi
       // The native detector failed on this image: zxing reads it instead.
     }
   }
-  return decoderWorker().decodeImage(transfer(bitmap, [bitmap]), maxSide);
+  return decoderWorker().decodeImage(transfer(bitmap, [bitmap]), maxSide, options);
 }
 
 /** Whether the zxing worker has been started (for diagnostics and tests). */

@@ -4,7 +4,7 @@ import { shownTag } from '../../domain/index.js';
 import type { TagVia } from '../../store/api.js';
 import { StoreError } from '../../store/index.js';
 import { hrefOf, navigate } from '../router.js';
-import { aimCrop } from '../scan/aim.js';
+import { aimCrop } from '../../../workers/tag-aim.js';
 import { setTorch, startRearCamera, stopCamera, torchTrack } from '../scan/camera.js';
 import { decodeBitmap } from '../scan/decoder.js';
 import { setPendingTag } from '../scan/pending-tag.js';
@@ -90,6 +90,7 @@ export default function TagScreen({ seamId }: RenderableProps<{ readonly seamId?
 
   /** Reads frames one after another (never two at once) until a tag is found or the camera stops. */
   const scanLoop = async (el: HTMLVideoElement, own: MediaStream) => {
+    let frame = 0;
     while (stream.current === own) {
       if (el.readyState < 2 || !el.videoWidth) {
         await new Promise((r) => setTimeout(r, 50));
@@ -99,7 +100,12 @@ export default function TagScreen({ seamId }: RenderableProps<{ readonly seamId?
       let found = null;
       try {
         const bitmap = await createImageBitmap(el, crop.sx, crop.sy, crop.sw, crop.sh);
-        found = await decodeBitmap(bitmap);
+        // Camera frames come ten a second: each is read one way round, quickly, so a frame with no tag (most of
+        // them while aiming) stays short; dark-on-light and light-on-dark alternate.
+        found = await decodeBitmap(bitmap, undefined, {
+          tryHarder: false,
+          polarity: frame++ % 2 === 0 ? 'normal' : 'inverted',
+        });
       } catch (e) {
         setStatus(`A frame could not be read (${errorText(e)}); still trying.`);
       }
