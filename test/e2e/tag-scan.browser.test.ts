@@ -194,3 +194,43 @@ describe('tag text is data', () => {
     expect(errors).toEqual([]);
   });
 });
+
+describe('tag labels', () => {
+  it('draws labels for the chosen seam with the generator loaded only there, and prints only the sheet', async () => {
+    const { page, errors } = await openApp({ camera: false });
+    const generator: string[] = [];
+    page.on('request', (r) => {
+      if (r.url().includes('label-codes')) generator.push(r.url());
+    });
+    const seam = await createSeam(page, { label: 'Stiffener seam L', thickness: 10, length: 500 });
+    await page.goto(`${server?.origin}/#/tag/${encodeURIComponent(seam)}`);
+    await textbox(page, 'Or type the tag').fill('KP-LBL-7');
+    await page.getByRole('button', { name: 'Find tag' }).click();
+    await page.getByRole('button', { name: 'Add this tag to Stiffener seam L' }).click();
+    await seamHeading(page, 'Stiffener seam L').waitFor();
+    expect(generator).toEqual([]);
+
+    await page.getByRole('link', { name: 'Print a tag label' }).click();
+    const label = page.locator('.tag-label');
+    await label.first().waitFor();
+    expect(generator.length).toBeGreaterThan(0);
+    expect(await label.count()).toBe(1);
+    expect(await label.locator('.label-tag').textContent()).toBe('KP-LBL-7');
+    expect(await label.locator('.label-seam').textContent()).toBe('Stiffener seam L');
+    // Both symbols are images made from SVG data, loaded and drawn.
+    const images = label.locator('img');
+    expect(await images.count()).toBe(2);
+    await expect
+      .poll(() => images.evaluateAll((els) => els.every((el) => (el as HTMLImageElement).naturalWidth > 0)))
+      .toBe(true);
+    expect(await page.getByRole('button', { name: 'Print 1 label' }).isEnabled()).toBe(true);
+
+    // On paper: no app bar, no controls; the page is A4 wide (210 mm = 793.7 CSS px).
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.locator('header.bar').isVisible()).toBe(false);
+    expect(await page.locator('.sheet-controls').isVisible()).toBe(false);
+    const width = await page.locator('.sheet-page').evaluate((el) => el.getBoundingClientRect().width);
+    expect(Math.abs(width - (210 / 25.4) * 96)).toBeLessThan(1);
+    expect(errors).toEqual([]);
+  });
+});
