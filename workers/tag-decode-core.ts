@@ -106,14 +106,45 @@ export function createTagDecoder(kit: ZxingKit): TagDecoder {
   return (frame, options = {}) => {
     if (frame.data.length < frame.width * frame.height)
       throw new Error('frame data is shorter than its size');
-    const source = new kit.RGBLuminanceSource(frame.data, frame.width, frame.height);
+    const once = (image: LumaFrame) => {
+      const source = new kit.RGBLuminanceSource(image.data, image.width, image.height);
+      return (
+        (polarity !== 'inverted' ? attempt(source, false, hints) : null) ??
+        (polarity !== 'normal' ? attempt(inverted(image), true, hints) : null)
+      );
+    };
     const hints = options.tryHarder === false ? quick : harder;
     const polarity = options.polarity ?? 'both';
-    return (
-      (polarity !== 'inverted' ? attempt(source, false, hints) : null) ??
-      (polarity !== 'normal' ? attempt(inverted(frame), true, hints) : null)
-    );
+    // A small image whose modules are about two pixels, blurred across pixel edges, reads after a 2× upscale;
+    // only when trying harder (photos), since a camera frame is large and comes again a moment later.
+    const small = Math.max(frame.width, frame.height) <= MAX_UPSCALED_SIDE;
+    return once(frame) ?? (small && options.tryHarder !== false ? once(upscaled2x(frame)) : null);
   };
+}
+
+const MAX_UPSCALED_SIDE = 640;
+
+/** The image at twice the size, bilinear (pixel centres kept in place). */
+export function upscaled2x(img: LumaFrame): LumaFrame {
+  const width = img.width * 2;
+  const height = img.height * 2;
+  const data = new Uint8ClampedArray(width * height);
+  const at = (x: number, y: number) => img.data[y * img.width + x] as number;
+  for (let y = 0; y < height; y++) {
+    const sy = Math.min(img.height - 1, Math.max(0, (y - 0.5) / 2));
+    const y0 = Math.floor(sy);
+    const y1 = Math.min(img.height - 1, y0 + 1);
+    const fy = sy - y0;
+    for (let x = 0; x < width; x++) {
+      const sx = Math.min(img.width - 1, Math.max(0, (x - 0.5) / 2));
+      const x0 = Math.floor(sx);
+      const x1 = Math.min(img.width - 1, x0 + 1);
+      const fx = sx - x0;
+      data[y * width + x] =
+        (at(x0, y0) * (1 - fx) + at(x1, y0) * fx) * (1 - fy) + (at(x0, y1) * (1 - fx) + at(x1, y1) * fx) * fy;
+    }
+  }
+  return { data, width, height };
 }
 
 /**

@@ -80,14 +80,30 @@ export interface RateRow {
   readonly misreads: number;
 }
 
+/**
+ * How the image is read: 'thorough' as a photo is (both polarities, TRY_HARDER); 'camera' as two successive
+ * camera frames are (one quick pass each, dark-on-light then light-on-dark).
+ */
+export type ReadMode = 'thorough' | 'camera';
+
+const readAs = (img: LumaFrame, mode: ReadMode) =>
+  mode === 'thorough'
+    ? decode(img)
+    : (decode(img, { tryHarder: false, polarity: 'normal' }) ??
+      decode(img, { tryHarder: false, polarity: 'inverted' }));
+
 /** Decodes every payload under every condition; a read counts only when the text comes back exactly. */
-export function measureRates(symbol: TestSymbol, payloads: readonly string[]): RateRow[] {
+export function measureRates(
+  symbol: TestSymbol,
+  payloads: readonly string[],
+  mode: ReadMode = 'thorough',
+): RateRow[] {
   const scenes = payloads.map((p) => scene(symbol, p));
   return CONDITIONS.map((condition) => {
     let read = 0;
     let misreads = 0;
     payloads.forEach((payload, i) => {
-      const found = decode(condition.apply(scenes[i] as LumaFrame, 1000 + i));
+      const found = readAs(condition.apply(scenes[i] as LumaFrame, 1000 + i), mode);
       if (found?.text === payload) read++;
       else if (found) misreads++;
     });
