@@ -57,7 +57,7 @@ for (let i = 0; i < none.length; i++) {
   none[i] = 160 + (seed >>> 27);
 }
 const frames: Record<string, LumaFrame> = { none: { data: none, width: WIDTH, height: HEIGHT } };
-const MODULE: Record<TestSymbol, number> = { qr: 6, dataMatrix: 6, code128: 3 };
+const MODULE: Record<TestSymbol, number> = { qr: 6, dataMatrix: 6, code128: 3, code39: 3 };
 for (const symbol of ['qr', 'dataMatrix', 'code128'] as const) {
   frames[symbol] = onBackground(drawSymbol(symbol, 'KP-014/B12-W07', MODULE[symbol]), WIDTH, HEIGHT, 170);
 }

@@ -4,11 +4,21 @@
 import bwipjs from 'bwip-js/node';
 import type { LumaFrame } from '../../workers/tag-decode-core.js';
 
-export type TestSymbol = 'qr' | 'dataMatrix' | 'code128';
+export type TestSymbol = 'qr' | 'dataMatrix' | 'code128' | 'code39';
 
-export const QUIET_ZONE_MODULES: Record<TestSymbol, number> = { qr: 4, dataMatrix: 2, code128: 10 };
+export const QUIET_ZONE_MODULES: Record<TestSymbol, number> = {
+  qr: 4,
+  dataMatrix: 2,
+  code128: 10,
+  code39: 10,
+};
 
-const BCID: Record<TestSymbol, string> = { qr: 'qrcode', dataMatrix: 'datamatrix', code128: 'code128' };
+const BCID: Record<TestSymbol, string> = {
+  qr: 'qrcode',
+  dataMatrix: 'datamatrix',
+  code128: 'code128',
+  code39: 'code39',
+};
 
 type Raw2D = { pixs: number[]; pixx: number; pixy: number };
 type Raw1D = { sbs: number[] };

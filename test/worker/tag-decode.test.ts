@@ -147,6 +147,17 @@ describe('tag text from 2D symbols', () => {
     expect(utf8Repaired('焊缝')).toBe('焊缝');
   });
 
+  it('reads Code 39, common on older yard tags', () => {
+    for (const payload of ['KP-014', 'B12 W07', 'TANK.3/A', 'X9']) {
+      const img = drawSymbol('code39', payload, 2);
+      expect(decode(onBackground(img, img.width + 80, img.height * 2))).toEqual({
+        text: payload,
+        symbol: 'code39',
+        inverted: false,
+      });
+    }
+  });
+
   it('finds nothing on a plain background', () => {
     const blank = { data: new Uint8ClampedArray(320 * 240).fill(190), width: 320, height: 240 };
     expect(decode(blank)).toBeNull();

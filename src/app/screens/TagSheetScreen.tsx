@@ -107,7 +107,7 @@ export default function TagSheetScreen({
   return (
     <section class="tag-sheet-screen" aria-labelledby="sheet-title">
       <div class="sheet-controls">
-        <h1 id="sheet-title">Tag labels</h1>
+        <h1 id="sheet-title">Tag sheet</h1>
         <fieldset>
           <legend>Seams to label</legend>
           <ul class="sheet-seams">
