@@ -180,6 +180,8 @@ export interface BackupFile {
   readonly rounds: readonly RoundRecord[];
   readonly readings: readonly ReadingRecord[];
   readonly outbox: readonly OutboxEntry[];
+  /** Tag links (store version 4; a backup made before has none). */
+  readonly tagLinks?: readonly TagLinkRecord[];
 }
 
 export interface ImportReport {
@@ -192,6 +194,8 @@ export interface ImportReport {
   readonly roundsUpdated: number;
   /** Outbox entries restored so they still reach the server (added with the store). */
   readonly outboxAdded: number;
+  /** Tag links restored (a tag linked to another seam here is refused, never moved). */
+  readonly tagLinksAdded: number;
   /** Records already present with identical content: skipped, never doubled. */
   readonly duplicatesSkipped: number;
   /** Records refused, with the reason; nothing else from the file is lost. */

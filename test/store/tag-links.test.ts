@@ -111,3 +111,55 @@ describe('tag links', () => {
     expect(await store.listTagLinks()).toEqual([]);
   });
 });
+
+describe('tag links in backups', () => {
+  it('travel in the backup and are restored onto another device', async () => {
+    const source = await freshStore();
+    await source.saveSeam(butt('s-a'));
+    await source.linkTag('s-a', 'KP-BK-1', 'camera');
+    const backup = JSON.parse(JSON.stringify(await source.exportBackup())) as unknown;
+    const target = await freshStore();
+    const report = await target.importBackup(backup);
+    expect(report.refused).toEqual([]);
+    expect(report.tagLinksAdded).toBe(1);
+    expect((await target.lookupTag('kp-bk-1')).link?.seamId).toBe('s-a');
+    // Again: nothing new.
+    expect((await target.importBackup(backup)).tagLinksAdded).toBe(0);
+  });
+
+  it('never moves a tag linked to another seam here, and reads backups made before tag links', async () => {
+    const source = await freshStore();
+    await source.saveSeam(butt('s-a'));
+    await source.saveSeam(butt('s-b'));
+    await source.linkTag('s-a', 'KP-BK-2', 'camera');
+    const backup = await source.exportBackup();
+    const target = await freshStore();
+    await target.saveSeam(butt('s-a'));
+    await target.saveSeam(butt('s-b'));
+    await target.linkTag('s-b', 'KP-BK-2', 'typed');
+    const report = await target.importBackup(JSON.parse(JSON.stringify(backup)) as unknown);
+    expect(report.tagLinksAdded).toBe(0);
+    expect(report.refused).toEqual([
+      { path: 'tagLinks[0]', reason: 'conflict: this tag is linked to seam "s-b" here; it was not moved' },
+    ]);
+    expect((await target.lookupTag('KP-BK-2')).link?.seamId).toBe('s-b');
+
+    const older: Record<string, unknown> = { ...backup };
+    delete older['tagLinks'];
+    const fresh = await freshStore();
+    expect((await fresh.importBackup(JSON.parse(JSON.stringify(older)) as unknown)).refused).toEqual([]);
+  });
+
+  it('refuses a link whose key is not its tag’s match key', async () => {
+    const source = await freshStore();
+    await source.saveSeam(butt('s-a'));
+    await source.linkTag('s-a', 'KP-BK-3', 'camera');
+    const backup = JSON.parse(JSON.stringify(await source.exportBackup())) as { tagLinks: { key: string }[] };
+    const [link] = backup.tagLinks;
+    if (link) link.key = 'OTHER';
+    const report = await (await freshStore()).importBackup(backup);
+    expect(report.refused).toEqual([
+      { path: 'tagLinks[0]', reason: 'key: must be "KP-BK-3", the tag\'s match key' },
+    ]);
+  });
+});
