@@ -10,6 +10,7 @@ import { gzipSync } from 'node:zlib';
 import { afterEach, describe, expect, inject, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import { drawSymbol, onBackground } from '../support/barcode-images.js';
+import { bmpOf } from '../support/bmp.js';
 import { writeY4m } from '../support/y4m.js';
 import { eagerChunks, readBuildManifest } from './support/build-app.js';
 import {
@@ -139,6 +140,31 @@ describe('tag scanning with the camera', () => {
     await page.goto(`${server?.origin}/#/seam/${encodeURIComponent(seamA)}`);
     await seamHeading(page, 'Tank shell A').waitFor();
     await page.getByText('Linked tags: none').waitFor();
+    expect(errors).toEqual([]);
+  });
+});
+
+describe('a photo of the tag', () => {
+  it('reads a Data Matrix from a chosen photo when there is no camera, and opens its seam', async () => {
+    const { page, errors } = await openApp({ camera: false });
+    const seam = await createSeam(page, { label: 'Bracket seam P', thickness: 8, length: 300 });
+    await page.goto(`${server?.origin}/#/tag/${encodeURIComponent(seam)}`);
+    await textbox(page, 'Or type the tag').fill('Naht-ä-7');
+    await page.getByRole('button', { name: 'Find tag' }).click();
+    await page.getByRole('button', { name: 'Add this tag to Bracket seam P' }).click();
+    await seamHeading(page, 'Bracket seam P').waitFor();
+
+    // A 1600 × 1200 "photo": the tag as a Data Matrix (UTF-8 bytes), light on dark.
+    const symbol = drawSymbol('dataMatrix', 'Naht-ä-7', 12);
+    const photo = onBackground(symbol, 1600, 1200, 255);
+    for (let i = 0; i < photo.data.length; i++) photo.data[i] = 255 - (photo.data[i] as number);
+    await page.goto(`${server?.origin}/#/tag`);
+    await page.getByLabel('Read a photo of the tag').setInputFiles({
+      name: 'tag.bmp',
+      mimeType: 'image/bmp',
+      buffer: bmpOf(photo),
+    });
+    await seamHeading(page, 'Bracket seam P').waitFor();
     expect(errors).toEqual([]);
   });
 });
