@@ -9,6 +9,7 @@ const BENCHES = [
   'assess.bench.js',
   'ingest.bench.js',
   'import.bench.js',
+  'tag-decode.bench.js',
   join('app', 'app.bench.js'),
 ];
 

@@ -12,6 +12,8 @@ const loadImport = () => import('./screens/ImportScreen.js');
 const loadSettings = () => import('./screens/SettingsScreen.js');
 const loadCaution = () => import('./screens/CautionScreen.js');
 const loadOutbox = () => import('./screens/OutboxScreen.js');
+const loadTag = () => import('./screens/TagScreen.js');
+const loadTagSheet = () => import('./screens/TagSheetScreen.js');
 
 function useOnline(): boolean {
   const [online, setOnline] = useState(() => navigator.onLine);
@@ -103,6 +105,8 @@ export function App() {
         {route.name === 'settings' ? <Lazy load={loadSettings} props={{}} /> : null}
         {route.name === 'caution' ? <Lazy load={loadCaution} props={{}} /> : null}
         {route.name === 'outbox' ? <Lazy load={loadOutbox} props={{}} /> : null}
+        {route.name === 'tag' ? <Lazy load={loadTag} props={{ seamId: route.seamId }} /> : null}
+        {route.name === 'tagSheet' ? <Lazy load={loadTagSheet} props={{ seamIds: route.seamIds }} /> : null}
       </main>
       <footer>
         <a href={hrefOf({ name: 'caution' })}>Caution: what the grades mean and what they do not</a>

@@ -10,6 +10,10 @@ export type Route =
   | { readonly name: 'import'; readonly id: string }
   | { readonly name: 'settings' }
   | { readonly name: 'outbox' }
+  /** Scanning a tag; `seamId` is the seam the user came from (the "current seam"). */
+  | { readonly name: 'tag'; readonly seamId?: string }
+  /** Printable tag labels for the seams chosen (ids). */
+  | { readonly name: 'tagSheet'; readonly seamIds: readonly string[] }
   | { readonly name: 'caution' };
 
 export function parseRoute(hash: string): Route {
@@ -24,6 +28,10 @@ export function parseRoute(hash: string): Route {
   }
   if (head === 'settings') return { name: 'settings' };
   if (head === 'outbox') return { name: 'outbox' };
+  if (head === 'tag') return id ? { name: 'tag', seamId: id } : { name: 'tag' };
+  if (head === 'tags' && id === 'print') {
+    return { name: 'tagSheet', seamIds: (sub ?? '').split(',').filter(Boolean).map(decodeURIComponent) };
+  }
   if (head === 'caution') return { name: 'caution' };
   return { name: 'seams' };
 }
@@ -48,6 +56,11 @@ export function hrefOf(route: Route): string {
       return '#/outbox';
     case 'caution':
       return '#/caution';
+    case 'tag':
+      return route.seamId === undefined ? '#/tag' : `#/tag/${encodeURIComponent(route.seamId)}`;
+    case 'tagSheet':
+      // Each id encoded twice: once so a comma in an id survives the list, once for the hash segment.
+      return `#/tags/print/${encodeURIComponent(route.seamIds.map(encodeURIComponent).join(','))}`;
   }
 }
 

@@ -35,3 +35,4 @@ export * from './sampling/special.js';
 export * from './sampling/statistics.js';
 export * from './sampling/adequacy.js';
 export * from './assess/index.js';
+export * from './tags/index.js';

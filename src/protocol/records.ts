@@ -9,15 +9,23 @@ import {
   readingSchema,
   roundSchema,
   seamSchema,
+  MAX_TAG_LENGTH,
+  readTagText,
   type Problem,
 } from '../domain/index.js';
 import { count, isoTimestamp, obj, text, toProblems, choice } from '../domain/model/schema-kit.js';
 import { RECORD_SCHEMA_VERSION } from './version.js';
 
-export const RECORD_KINDS = ['seamSetup', 'round', 'checklistAnswer', 'reading'] as const;
+export const RECORD_KINDS = ['seamSetup', 'round', 'checklistAnswer', 'reading', 'tagLink'] as const;
 export type RecordKind = (typeof RECORD_KINDS)[number];
 
 const id = text(64, 'an id');
+export const TAG_ACTIONS = ['link', 'unlink'] as const;
+/**
+ * How the tag was read: camera, a photo, typed by hand, or made for a printed label; `confirmedMove` for the unlink
+ * half of a move.
+ */
+export const TAG_VIA = ['camera', 'photo', 'typed', 'printed', 'confirmedMove'] as const;
 const checklistAnswer = roundSchema.entries.checklist.entries.crack.wrapped;
 
 /** What each kind of record carries (the device store's outbox bodies). Device times are informative only. */
@@ -43,6 +51,14 @@ export const recordBodySchemas = {
     answeredAt: isoTimestamp(),
   }),
   reading: obj('a reading record body', { seamId: id, reading: readingSchema }),
+  /** A tag linked to or unlinked from a seam; a move is an unlink from one seam and a link to the other. */
+  tagLink: obj('a tag link record body', {
+    seamId: id,
+    action: choice(TAG_ACTIONS),
+    tag: text(MAX_TAG_LENGTH, 'a tag'),
+    via: choice(TAG_VIA),
+    at: isoTimestamp(),
+  }),
 } as const;
 
 export type RecordBodies = { [K in RecordKind]: v.InferOutput<(typeof recordBodySchemas)[K]> };
@@ -191,6 +207,19 @@ function crossChecks(record: SyncRecord): Problem[] {
     case 'reading':
       problems.push(...readingAlone(record.id, record.seamId, record.body.reading));
       break;
+    case 'tagLink': {
+      // Stored as the device cleaned it: text that the device would not keep is not a tag.
+      const read = readTagText(record.body.tag);
+      if (!read.ok || read.tag !== record.body.tag) {
+        problems.push({
+          path: 'body.tag',
+          message: read.ok
+            ? 'must be clean tag text (NFC, no surrounding white space or control characters)'
+            : read.message,
+        });
+      }
+      break;
+    }
   }
   return problems;
 }

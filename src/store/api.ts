@@ -55,7 +55,7 @@ export interface ReadingRecord {
   readonly localSeq: number;
 }
 
-export type OutboxKind = 'seamSetup' | 'round' | 'checklistAnswer' | 'reading';
+export type OutboxKind = 'seamSetup' | 'round' | 'checklistAnswer' | 'reading' | 'tagLink';
 
 /**
  * What each kind of outbox entry carries as its body (added with the store; `OutboxEntry.body` stays `unknown` for
@@ -83,6 +83,37 @@ export interface OutboxBodies {
     readonly answeredAt: string;
   };
   readonly reading: { readonly seamId: string; readonly reading: Reading };
+  /** Version 4: a tag linked to or unlinked from a seam (a move is an unlink and a link, in one transaction). */
+  readonly tagLink: {
+    readonly seamId: string;
+    readonly action: 'link' | 'unlink';
+    readonly tag: string;
+    readonly via: TagVia | 'confirmedMove';
+    readonly at: string;
+  };
+}
+
+/** How a tag was read. */
+export type TagVia = 'camera' | 'photo' | 'typed' | 'printed';
+
+/** A tag fixed to the work, linked to one seam (version 4). Keyed by the tag's match key. */
+export interface TagLinkRecord {
+  readonly key: string;
+  /** The tag as read (clean text; shown with shownTag). */
+  readonly tag: string;
+  readonly seamId: string;
+  readonly namespace: Namespace;
+  readonly linkedAt: string;
+  readonly via: TagVia;
+}
+
+/** Where a tag leads: its owners (a link, or the set-ups listing it) and the scan outcome. */
+export interface TagLookup {
+  readonly tag: string;
+  readonly key: string;
+  readonly link: TagLinkRecord | undefined;
+  /** Seams whose set-up lists the tag (consulted only when no link decides). */
+  readonly setupSeamIds: readonly string[];
 }
 
 export interface OutboxEntry {
@@ -149,6 +180,8 @@ export interface BackupFile {
   readonly rounds: readonly RoundRecord[];
   readonly readings: readonly ReadingRecord[];
   readonly outbox: readonly OutboxEntry[];
+  /** Tag links (store version 4; a backup made before has none). */
+  readonly tagLinks?: readonly TagLinkRecord[];
 }
 
 export interface ImportReport {
@@ -161,6 +194,8 @@ export interface ImportReport {
   readonly roundsUpdated: number;
   /** Outbox entries restored so they still reach the server (added with the store). */
   readonly outboxAdded: number;
+  /** Tag links restored (a tag linked to another seam here is refused, never moved). */
+  readonly tagLinksAdded: number;
   /** Records already present with identical content: skipped, never doubled. */
   readonly duplicatesSkipped: number;
   /** Records refused, with the reason; nothing else from the file is lost. */
@@ -253,6 +288,20 @@ export interface Store {
   importBackup(data: unknown): Promise<ImportReport>;
   /** Stores the demo yard in the 'demo' namespace; returns how many demo seams were added (0 when already loaded). */
   loadDemo(): Promise<number>;
+  /** Where a tag leads (clean tag text: see readTagText). */
+  lookupTag(tag: string): Promise<TagLookup>;
+  /** Every tag link, for search. */
+  listTagLinks(): Promise<TagLinkRecord[]>;
+  /** The tags linked to one seam. */
+  seamTags(seamId: string): Promise<TagLinkRecord[]>;
+  /**
+   * Links a tag to a seam, recording the event (queued for the server when live). A tag owned by another seam
+   * (a link, or that seam's set-up) is moved only with `confirmedFrom` naming that seam; otherwise a StoreError
+   * 'conflict' names the owner and nothing changes.
+   */
+  linkTag(seamId: string, tag: string, via: TagVia, confirmedFrom?: string): Promise<TagLinkRecord>;
+  /** Unlinks a tag from a seam, recording the event; false when it was not linked there. */
+  unlinkTag(seamId: string, tag: string): Promise<boolean>;
   /** Removes every demo record and nothing else; returns how many demo seams were removed. */
   removeDemo(): Promise<number>;
   close(): void;

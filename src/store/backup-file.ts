@@ -13,7 +13,7 @@ const notBackup = (why: string) =>
   );
 
 /** The file as a whole: anything that is not a Beadbook backup is refused before a record is looked at. */
-export function readEnvelope(data: unknown): Record<(typeof LISTS)[number], unknown[]> {
+export function readEnvelope(data: unknown): Record<(typeof LISTS)[number] | 'tagLinks', unknown[]> {
   let file = data;
   if (typeof file === 'string') {
     try {
@@ -38,12 +38,16 @@ export function readEnvelope(data: unknown): Record<(typeof LISTS)[number], unkn
     }
     throw notBackup(`This file is not a Beadbook backup: it has no "format": "${BACKUP_FORMAT}".`);
   }
-  const lists = {} as Record<(typeof LISTS)[number], unknown[]>;
+  const lists = {} as Record<(typeof LISTS)[number] | 'tagLinks', unknown[]>;
   for (const key of LISTS) {
     const list = (file as Record<string, unknown>)[key];
     if (!Array.isArray(list)) throw notBackup(`This backup is damaged: "${key}" is missing or not a list.`);
     lists[key] = list;
   }
+  // Backups made before tag links (store version 4) have none.
+  const tagLinks = (file as Record<string, unknown>)['tagLinks'] ?? [];
+  if (!Array.isArray(tagLinks)) throw notBackup('This backup is damaged: "tagLinks" is not a list.');
+  lists.tagLinks = tagLinks;
   return lists;
 }
 

@@ -1,9 +1,16 @@
 // What a backup file must hold, record by record. Records use the grading core's own schemas for seams, rounds
 // and readings, so a restored record is one the grader accepts.
 import * as v from 'valibot';
-import { LEVELS, readingSchema, roundSchema, seamSchema } from '../domain/index.js';
+import {
+  LEVELS,
+  MAX_TAG_LENGTH,
+  readingSchema,
+  readTagText,
+  roundSchema,
+  seamSchema,
+} from '../domain/index.js';
 import { choice, count, isoTimestamp, obj, text, toProblems } from '../domain/model/schema-kit.js';
-import type { OutboxEntry, ReadingRecord, RoundRecord, SeamRecord } from './api.js';
+import type { OutboxEntry, ReadingRecord, RoundRecord, SeamRecord, TagLinkRecord } from './api.js';
 
 const namespace = choice(['live', 'demo']);
 const sequence = count(1, Number.MAX_SAFE_INTEGER);
@@ -42,7 +49,7 @@ const readingRecord = obj('reading record', {
 const outboxEntry = obj('outbox entry', {
   seq: sequence,
   recordId: text(64, 'an id'),
-  kind: choice(['seamSetup', 'round', 'checklistAnswer', 'reading']),
+  kind: choice(['seamSetup', 'round', 'checklistAnswer', 'reading', 'tagLink']),
   seamId: text(64, 'an id'),
   body: v.record(v.string(), v.unknown(), 'must be an object'),
   createdAt: isoTimestamp(),
@@ -64,3 +71,24 @@ export const checkSeamRecord = checker<SeamRecord>(seamRecord);
 export const checkRoundRecord = checker<RoundRecord>(roundRecord);
 export const checkReadingRecord = checker<ReadingRecord>(readingRecord);
 export const checkOutboxEntry = checker<OutboxEntry>(outboxEntry);
+
+const tagLinkRecord = obj('tag link record', {
+  key: text(MAX_TAG_LENGTH * 4, 'a tag key'),
+  tag: text(MAX_TAG_LENGTH, 'a tag'),
+  seamId: text(64, 'an id'),
+  namespace,
+  linkedAt: isoTimestamp(),
+  via: choice(['camera', 'photo', 'typed', 'printed']),
+});
+const checkTagLinkShape = checker<TagLinkRecord>(tagLinkRecord);
+
+/** A tag link as this device would have stored it: clean tag text, keyed by its match key. */
+export function checkTagLinkRecord(input: unknown): Checked<TagLinkRecord> {
+  const shaped = checkTagLinkShape(input);
+  if (!shaped.ok) return shaped;
+  const read = readTagText(shaped.value.tag);
+  if (!read.ok || read.tag !== shaped.value.tag) return { ok: false, reason: 'tag: is not clean tag text' };
+  if (read.key !== shaped.value.key)
+    return { ok: false, reason: `key: must be "${read.key}", the tag's match key` };
+  return shaped;
+}

@@ -53,8 +53,10 @@ export async function loadDemo(ctx: StoreContext): Promise<number> {
  * a record of work, so removing it loses nothing; live seams, rounds and readings are never deleted.
  */
 export async function removeDemo(ctx: StoreContext): Promise<number> {
-  return ctx.conn.run(['seams', 'rounds', 'readings'], 'readwrite', async (tx) => {
+  return ctx.conn.run(['seams', 'rounds', 'readings', 'tagLinks'], 'readwrite', async (tx) => {
     const seams = tx.objectStore('seams');
+    const links = tx.objectStore('tagLinks');
+    for (const key of await links.index('byNamespace').getAllKeys('demo')) await links.delete(key);
     const demoSeams = await seams.index('byNamespace').getAllKeys('demo');
     for (const id of demoSeams) {
       await seams.delete(id);

@@ -5,6 +5,8 @@ export type StoreErrorCode =
   | 'notFound'
   /** A record with this id is stored already; append-only records are never overwritten. */
   | 'exists'
+  /** The change would silently override someone else's: e.g. a tag linked to another seam (version 4). */
+  | 'conflict'
   /** The input breaks a rule; the message names the field and what is allowed. */
   | 'invalid'
   /** importBackup was given something that is not a Beadbook backup. */

@@ -1,7 +1,5 @@
 // Opens the store: the one object through which screens and the sync code reach IndexedDB.
 import type { Store } from './api.js';
-import { exportBackup } from './backup-export.js';
-import { importBackup } from './backup-import.js';
 import { Connection } from './connection.js';
 import type { StoreContext } from './context.js';
 import { loadDemo, removeDemo } from './demo-namespace.js';
@@ -12,6 +10,10 @@ import * as reads from './reads.js';
 import { DEFAULT_DB_NAME } from './schema.js';
 import * as sendLog from './send-log.js';
 import { answerChecklist, saveSeam, setSummary, startRound } from './seam-writes.js';
+import type { TagLinkRecord } from './api.js';
+
+// Linking rules load on first use: the Seams list needs only the links themselves, and first paint stays small.
+const tagWrites = () => import('./tag-links.js');
 
 export interface OpenStoreOptions {
   /** Database name; tests give each case its own. */
@@ -65,8 +67,16 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     settleBatch: (batchId, answers) => sendLog.settleBatch(ctx, batchId, answers),
     releaseBatch: (batchId) => sendLog.releaseBatch(ctx, batchId),
     acknowledge: (recordIds) => sendLog.acknowledge(ctx, recordIds),
-    exportBackup: () => exportBackup(ctx),
-    importBackup: (data) => importBackup(ctx, data),
+    // Backups are rare: their schemas and merge rules load when asked for, not with the first screen.
+    exportBackup: async () => (await import('./backup-export.js')).exportBackup(ctx),
+    importBackup: async (data) => (await import('./backup-import.js')).importBackup(ctx, data),
+    lookupTag: async (tag) => (await tagWrites()).lookupTag(ctx, tag),
+    listTagLinks: (): Promise<TagLinkRecord[]> =>
+      ctx.conn.run(['tagLinks'], 'readonly', (tx) => tx.store.getAll()),
+    seamTags: async (seamId) => (await tagWrites()).seamTags(ctx, seamId),
+    linkTag: async (seamId, tag, via, confirmedFrom) =>
+      (await tagWrites()).linkTag(ctx, seamId, tag, via, confirmedFrom),
+    unlinkTag: async (seamId, tag) => (await tagWrites()).unlinkTag(ctx, seamId, tag),
     loadDemo: () => loadDemo(ctx),
     removeDemo: () => removeDemo(ctx),
     close: () => conn.close(),

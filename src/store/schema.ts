@@ -10,6 +10,7 @@ import type {
   SealedBatchRecord,
   SeamRecord,
   SendState,
+  TagLinkRecord,
 } from './api.js';
 
 export const DEFAULT_DB_NAME = 'beadbook';
@@ -48,6 +49,12 @@ export interface BeadbookDB extends DBSchema {
   batches: { key: string; value: SealedBatchRecord; indexes: { byDeviceSeq: number } };
   /** How sending went for each waiting record: its batch, attempts, last error, rejection (version 3). */
   sendLog: { key: string; value: SendState };
+  /** Each tag's one seam, keyed by the tag's match key (version 4). */
+  tagLinks: {
+    key: string;
+    value: TagLinkRecord;
+    indexes: { bySeam: string; byNamespace: Namespace };
+  };
 }
 
 export type UpgradeTransaction = IDBPTransaction<BeadbookDB, StoreNames<BeadbookDB>[], 'versionchange'>;
@@ -109,8 +116,18 @@ function version3(db: IDBPDatabase<BeadbookDB>): void {
   db.createObjectStore('sendLog', { keyPath: 'recordId' });
 }
 
+/**
+ * Version 4: tag links (tag → seam), with indexes by seam and by namespace (the demo's links leave with it).
+ * Nothing older holds links, so nothing is back-filled: tags listed in set-ups are read from the seams.
+ */
+function version4(db: IDBPDatabase<BeadbookDB>): void {
+  const links = db.createObjectStore('tagLinks', { keyPath: 'key' });
+  links.createIndex('bySeam', 'seamId');
+  links.createIndex('byNamespace', 'namespace');
+}
+
 /** MIGRATIONS[n - 1] brings a database from version n - 1 to version n. Append only; never edit a shipped step. */
-export const MIGRATIONS: readonly Migration[] = [version1, version2, version3];
+export const MIGRATIONS: readonly Migration[] = [version1, version2, version3, version4];
 export const DB_VERSION = MIGRATIONS.length;
 
 /**

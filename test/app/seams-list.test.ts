@@ -34,6 +34,12 @@ describe('search', () => {
   ];
   const find = (q: string) => seams.filter((s) => matchesSearch(s, q)).map((s) => s.id);
 
+  it('finds by a tag linked by scanning', () => {
+    expect(
+      seams.filter((s) => matchesSearch(s, 'kp-77', s.id === 'b' ? ['KP-77'] : [])).map((s) => s.id),
+    ).toEqual(['b']);
+  });
+
   it('finds by label, tag, drawing and welder, ignoring case and accents', () => {
     expect(find('girder')).toEqual(['a']);
     expect(find('tx-202')).toEqual(['b']);

@@ -191,5 +191,6 @@ describe('judging a record', () => {
     expectTypeOf<OutboxBodies['round']>().toMatchTypeOf<RecordBodies['round']>();
     expectTypeOf<OutboxBodies['seamSetup']>().toMatchTypeOf<RecordBodies['seamSetup']>();
     expectTypeOf<OutboxBodies['checklistAnswer']>().toMatchTypeOf<RecordBodies['checklistAnswer']>();
+    expectTypeOf<OutboxBodies['tagLink']>().toMatchTypeOf<RecordBodies['tagLink']>();
   });
 });

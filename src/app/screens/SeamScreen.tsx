@@ -13,6 +13,7 @@ import { fmtLevel, fmtWhen, ROUND_KIND_LABEL } from '../components/format.js';
 import { GradePanel } from '../components/GradePanel.js';
 import { ImperfectionTable } from '../components/ImperfectionTable.js';
 import { Lazy } from '../components/Lazy.js';
+import { LinkedTags } from '../components/LinkedTags.js';
 import { ReadingList } from '../components/ReadingList.js';
 import { SetupSummary } from '../components/SetupSummary.js';
 import { StripChart } from '../components/StripChart.js';
@@ -268,6 +269,7 @@ export default function SeamScreen({ id }: { readonly id: string }) {
             Edit set-up
           </a>
         </div>
+        <LinkedTags seamId={id} />
       </header>
 
       <div class="seam-top">

@@ -30,6 +30,8 @@ import {
 } from '../components/setup-form.js';
 import { TextField } from '../components/TextField.js';
 import { hrefOf, navigate } from '../router.js';
+import { takePendingTag } from '../scan/pending-tag.js';
+import { shownTag } from '../../domain/tags/tag-text.js';
 import { getStore } from '../services/store.js';
 
 type Errors = Partial<Record<SetupField, string[]>>;
@@ -146,6 +148,8 @@ function SelectField<T extends string>(props: {
 
 function SetupFormView({ rec }: { readonly rec: SeamRecord | null }) {
   const [form, setForm] = useState<SetupForm>(() => (rec ? formFromSeam(rec.seam) : emptyForm()));
+  // A tag the user chose "New seam with this tag" for: linked once the seam is saved.
+  const [pendingTag] = useState(() => (rec ? null : takePendingTag()));
   const [id] = useState(() => rec?.id ?? uuidv7());
   const [tried, setTried] = useState(false);
   const [saving, setSaving] = useState(false);
@@ -167,6 +171,7 @@ function SetupFormView({ rec }: { readonly rec: SeamRecord | null }) {
     try {
       const store = await getStore();
       const saved = await store.saveSeam(check.seam, rec?.namespace ?? 'live');
+      if (pendingTag) await store.linkTag(saved.id, pendingTag.tag, pendingTag.via);
       navigate({ name: 'seam', id: saved.id });
     } catch (e) {
       setSaveError(e instanceof Error ? e.message : String(e));
@@ -188,6 +193,15 @@ function SetupFormView({ rec }: { readonly rec: SeamRecord | null }) {
       {rec?.namespace === 'demo' ? (
         <p class="note">
           <span class="tag tag-demo">demo</span> This is a demo seam; changes stay in the demo data.
+        </p>
+      ) : null}
+      {pendingTag ? (
+        <p class="note pending-tag">
+          The tag{' '}
+          <code class="tag-text" title={pendingTag.tag}>
+            {shownTag(pendingTag.tag)}
+          </code>{' '}
+          will be linked to this seam when it is saved.
         </p>
       ) : null}
       <ErrorSummary errors={errors} />

@@ -9,7 +9,16 @@ import { entryCheckWorker } from '../services/entry-check.js';
 import { getStore } from '../services/store.js';
 
 type Load =
-  { state: 'loading' } | { state: 'failed'; message: string } | { state: 'ready'; seams: SeamRecord[] };
+  | { state: 'loading' }
+  | { state: 'failed'; message: string }
+  | { state: 'ready'; seams: SeamRecord[]; linked: ReadonlyMap<string, string[]> };
+
+/** Tags linked by scanning, per seam, so the search box finds a seam by them too. */
+function linkedBySeam(links: readonly { seamId: string; tag: string }[]): Map<string, string[]> {
+  const map = new Map<string, string[]>();
+  for (const l of links) map.set(l.seamId, [...(map.get(l.seamId) ?? []), l.tag]);
+  return map;
+}
 
 const errorText = (e: unknown) => (e instanceof Error ? e.message : String(e));
 
@@ -127,16 +136,14 @@ export function SeamsScreen() {
     try {
       const store = await getStore();
       const seams = sortSeams(await store.listSeams());
-      setLoad({ state: 'ready', seams });
+      setLoad({ state: 'ready', seams, linked: linkedBySeam(await store.listTagLinks()) });
       // npm run bench:app times the cold start to this mark: the list is read from storage and on screen.
       if (!performance.getEntriesByName(FIRST_SCREEN_MARK).length) {
         requestAnimationFrame(() => performance.mark(FIRST_SCREEN_MARK));
       }
       const update = (rec: SeamRecord) =>
         setLoad((l) =>
-          l.state === 'ready'
-            ? { state: 'ready', seams: l.seams.map((s) => (s.id === rec.id ? rec : s)) }
-            : l,
+          l.state === 'ready' ? { ...l, seams: l.seams.map((s) => (s.id === rec.id ? rec : s)) } : l,
         );
       void refreshSummaries(seams, update, () => mounted.current).catch((e: unknown) =>
         setError(`Some levels could not be brought up to date: ${errorText(e)}`),
@@ -180,16 +187,28 @@ export function SeamsScreen() {
           </p>
         ) : null}
         <Welcome onDemo={() => void loadDemo()} busy={busy} />
+        <p>
+          <a class="button" href={hrefOf({ name: 'tag' })}>
+            Scan tag
+          </a>
+        </p>
       </>
     );
   }
-  const shown = load.seams.filter((s) => matchesSearch(s, query));
+  const { linked } = load;
+  const shown = load.seams.filter((s) => matchesSearch(s, query, linked.get(s.id)));
   return (
     <section aria-labelledby="seams-title" class="seams">
       <div class="screen-head">
         <h1 id="seams-title">Seams</h1>
-        <a class="button primary" href={hrefOf({ name: 'seamNew' })}>
+        <a class="button primary" href={hrefOf({ name: 'tag' })}>
+          Scan tag
+        </a>
+        <a class="button" href={hrefOf({ name: 'seamNew' })}>
           + Set up a seam
+        </a>
+        <a class="button" href={hrefOf({ name: 'tagSheet', seamIds: [] })}>
+          Print tag labels
         </a>
       </div>
       {error ? (

@@ -107,7 +107,8 @@ function ImportBackup() {
         <div role="status" class="report">
           <p>
             <strong>Imported:</strong> {report.seamsAdded} seams added, {report.seamsUpdated} updated,{' '}
-            {report.readingsAdded} readings added; {report.duplicatesSkipped} already here, skipped.
+            {report.readingsAdded} readings and {report.tagLinksAdded} tag links added;{' '}
+            {report.duplicatesSkipped} already here, skipped.
           </p>
           {report.refused.length ? (
             <>

@@ -84,6 +84,9 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
       case 'reading':
         readings.push({ recordId: r.id, reading: held?.get(r.id) ?? bodyOf<'reading'>(r).reading });
         break;
+      case 'tagLink':
+        // Which tag leads to the seam: kept as a record, nothing to grade and nothing left out.
+        break;
       default:
         leftOut.push({ recordId: r.id, reason: `records of kind "${r.kind}" are not graded` });
     }

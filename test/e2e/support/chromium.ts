@@ -26,12 +26,31 @@ export async function removeProfileDir(dir: string): Promise<void> {
   await rm(dir, { recursive: true, force: true, maxRetries: 3 });
 }
 
+export interface LaunchOptions {
+  /**
+   * A Y4M or MJPEG file the fake camera plays in a loop (getUserMedia is granted without a prompt). Only the
+   * flags the fake capture needs are added to the standard ones.
+   */
+  readonly fakeCameraFile?: string;
+}
+
+/** Flags for a fake camera fed from a video file. */
+export function fakeCameraFlags(file: string): string[] {
+  return [
+    '--use-fake-device-for-media-stream',
+    '--use-fake-ui-for-media-stream',
+    `--use-file-for-fake-video-capture=${file}`,
+  ];
+}
+
 /** Starts Chromium on the profile (playwright passes it as --user-data-dir). */
-export function launchChromium(profileDir: string): Promise<BrowserContext> {
+export function launchChromium(profileDir: string, options: LaunchOptions = {}): Promise<BrowserContext> {
   return chromium.launchPersistentContext(profileDir, {
     executablePath: CHROMIUM_PATH,
     headless: true,
-    args: CHROMIUM_FLAGS,
+    args: options.fakeCameraFile
+      ? [...CHROMIUM_FLAGS, ...fakeCameraFlags(options.fakeCameraFile)]
+      : CHROMIUM_FLAGS,
     serviceWorkers: 'allow',
   });
 }

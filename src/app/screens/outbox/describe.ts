@@ -58,6 +58,7 @@ const KIND_NAMES: Record<string, string> = {
   round: 'Round',
   checklistAnswer: 'Checklist answer',
   reading: 'Reading',
+  tagLink: 'Tag link',
 };
 
 export const kindName = (kind: string): string => KIND_NAMES[kind] ?? kind;

@@ -1,0 +1,2 @@
+export * from './tag-text.js';
+export * from './linking.js';
