@@ -130,6 +130,7 @@ export function gradeFolded(material: Parameters<typeof foldSeam>[0]): {
  */
 export class Regrader {
   readonly #pending = new Set<string>();
+  readonly #graded = new Set<(seamId: string) => void>();
   #running: Promise<void> | null = null;
 
   constructor(
@@ -148,6 +149,11 @@ export class Regrader {
     }
   }
 
+  /** Calls the listener after each scheduled re-grade is saved (the review facts follow the grade). */
+  onGraded(listener: (seamId: string) => void): void {
+    this.#graded.add(listener);
+  }
+
   /** Resolves when every scheduled seam has been graded. */
   async idle(): Promise<void> {
     while (this.#running) await this.#running;
@@ -162,6 +168,7 @@ export class Regrader {
       this.#pending.delete(next.value);
       try {
         await this.regrade(next.value);
+        for (const listener of this.#graded) listener(next.value);
       } catch (error) {
         this.log.error('regradeFailed', { seamId: next.value, error });
       }

@@ -5,7 +5,12 @@ import { html, type Html } from './html.js';
 import { qrSvg } from './qr.js';
 import type { IssuedCode } from '../admin/service.js';
 
-function layout(title: string, body: Html, signedIn: string | null): string {
+export function layout(
+  title: string,
+  body: Html,
+  signedIn: string | null,
+  options: { readonly bodyClass?: string; readonly script?: string } = {},
+): string {
   return `<!doctype html>${
     html`<html lang="en">
       <head>
@@ -13,14 +18,16 @@ function layout(title: string, body: Html, signedIn: string | null): string {
         <meta name="viewport" content="width=device-width, initial-scale=1" />
         <title>${title} · Beadbook supervisor</title>
         <link rel="stylesheet" href="/supervisor/style.css" />
+        ${options.script ? html`<script type="module" src="${options.script}"></script>` : ''}
       </head>
-      <body>
-        <header>
+      <body class="${options.bodyClass ?? ''}">
+        <header class="site">
           <strong>Beadbook supervisor</strong>
           ${
             signedIn === null
               ? ''
-              : html`<a href="/supervisor/devices">Devices</a> <a href="/supervisor/seams">Seams</a>
+              : html`<a href="/supervisor/review">Review</a> <a href="/supervisor/seams">Seams</a>
+                  <a href="/supervisor/devices">Devices</a>
                   <form method="post" action="/supervisor/logout">
                     <span>${signedIn}</span> <button type="submit">Sign out</button>
                   </form>`
@@ -71,7 +78,7 @@ export function passwordPage(user: string, mustChange: boolean, error: string | 
   );
 }
 
-const when = (iso: string | null): string =>
+export const when = (iso: string | null): string =>
   iso === null ? 'never' : iso.replace('T', ' ').replace(/\.\d+Z$/, ' UTC');
 
 function deviceRow(d: Device): Html {

@@ -10,6 +10,7 @@ import { HttpError } from '../http/errors.js';
 import { rateLimit } from '../http/rate-limit.js';
 import type { Account } from '../storage/types.js';
 import { devicesPage, loginPage, passwordPage, seamsPage, type SeamLine } from './pages.js';
+import { reviewWebRoutes } from './review/routes.js';
 import { SUPERVISOR_CSS } from './style.js';
 
 const page = (c: Context, body: string, status: 200 | 400 | 401 | 403 = 200) => {
@@ -30,7 +31,7 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     return c.body(SUPERVISOR_CSS);
   });
 
-  app.get('/', (c) => c.redirect('/supervisor/devices', 303));
+  app.get('/', (c) => c.redirect('/supervisor/review', 303));
 
   app.get('/login', (c) => page(c, loginPage(null)));
 
@@ -46,7 +47,7 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     }
     await startSession(deps, c, account);
     deps.log.info('signedIn', { account: account.username });
-    return c.redirect(account.mustChangePassword ? '/supervisor/password' : '/supervisor/devices', 303);
+    return c.redirect(account.mustChangePassword ? '/supervisor/password' : '/supervisor/review', 303);
   });
 
   app.post('/logout', async (c) => {
@@ -116,6 +117,8 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     } else notice = 'No such device.';
     return page(c, devicesPage(me(c).username, await deps.storage.listDevices(), null, notice));
   });
+
+  app.route('/review', reviewWebRoutes(deps));
 
   app.get('/seams', supervisor, async (c) => {
     const lines: SeamLine[] = [];

@@ -66,6 +66,7 @@ export async function startYardServer(appDir: string): Promise<YardServer> {
       (server as HttpServer).closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await deps.regrader.idle();
+      await deps.reviewIndexer.idle();
       await storage.close();
     },
   };
