@@ -1,5 +1,5 @@
-// The supervisor's pages: sign-in, password, Devices (enrolment code, rename, revoke, last contact, queue) and a
-// read-only Seams list with the server's grade beside the device's. Plain HTML forms; no script.
+// The supervisor's pages: the shared layout, sign-in, password and Devices (enrolment code, rename, revoke, last
+// contact, queue). The review and Seams pages are in review/ and seams-page.ts. Plain HTML forms; no inline script.
 import type { Device } from '../storage/types.js';
 import { html, type Html } from './html.js';
 import { qrSvg } from './qr.js';
@@ -168,60 +168,6 @@ export function devicesPage(
               ? devices.map(deviceRow)
               : html`<tr>
                   <td colspan="5">No device is enrolled yet.</td>
-                </tr>`
-          }
-        </tbody>
-      </table>`,
-    user,
-  );
-}
-
-export interface SeamLine {
-  readonly id: string;
-  readonly label: string | null;
-  readonly namespace: string;
-  readonly records: number;
-  readonly serverGrade: string;
-  readonly deviceGrades: string;
-}
-
-export function seamsPage(user: string, seams: readonly SeamLine[]): string {
-  return layout(
-    'Seams',
-    html`<h1>Seams</h1>
-      <p>
-        The server grades every seam again from the records it holds; the device's own grade is shown beside
-        it.
-      </p>
-      <table>
-        <thead>
-          <tr>
-            <th>Seam</th>
-            <th>Records</th>
-            <th>Server's grade</th>
-            <th>Devices' grades</th>
-          </tr>
-        </thead>
-        <tbody>
-          ${
-            seams.length
-              ? seams.map(
-                  (s) =>
-                    html`<tr>
-                      <td>
-                        ${s.label ?? s.id}
-                        ${s.namespace === 'demo' ? html`<span class="badge demo">demo</span>` : ''}<br /><span
-                          class="kid"
-                          >${s.id}</span
-                        >
-                      </td>
-                      <td>${s.records}</td>
-                      <td>${s.serverGrade}</td>
-                      <td>${s.deviceGrades}</td>
-                    </tr>`,
-                )
-              : html`<tr>
-                  <td colspan="4">No seam yet.</td>
                 </tr>`
           }
         </tbody>
