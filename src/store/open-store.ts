@@ -9,6 +9,7 @@ import { uuidv7 } from './ids.js';
 import { appendReading } from './reading-writes.js';
 import * as reads from './reads.js';
 import { DEFAULT_DB_NAME } from './schema.js';
+import * as pulled from './pulled.js';
 import * as sendLog from './send-log.js';
 import { answerChecklist, saveSeam, setSummary, startRound } from './seam-writes.js';
 
@@ -62,6 +63,12 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     settleBatch: (batchId, answers) => sendLog.settleBatch(ctx, batchId, answers),
     releaseBatch: (batchId) => sendLog.releaseBatch(ctx, batchId),
     acknowledge: (recordIds) => sendLog.acknowledge(ctx, recordIds),
+    pullCursor: () => pulled.pullCursor(ctx),
+    receivePulled: (items, cursor) => pulled.receivePulled(ctx, items, cursor),
+    listDecisions: (seamId) => pulled.listDecisions(ctx, seamId),
+    unseenDecisions: () => pulled.unseenDecisions(ctx),
+    markDecisionsSeen: (seamId) => pulled.markDecisionsSeen(ctx, seamId),
+    listAssignments: (seamId) => pulled.listAssignments(ctx, seamId),
     exportBackup: () => exportBackup(ctx),
     importBackup: (data) => importBackup(ctx, data),
     loadDemo: () => loadDemo(ctx),

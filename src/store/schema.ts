@@ -2,6 +2,8 @@
 // older app version is upgraded in place: migrations only add and back-fill, they never drop data.
 import type { DBSchema, IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
 import type {
+  AssignmentRecord,
+  DecisionRecord,
   Namespace,
   OutboxEntry,
   ReadingRecord,
@@ -18,7 +20,9 @@ export type MetaRecord =
   | { readonly key: 'created'; readonly createdAt: string }
   | { readonly key: 'localSeq'; readonly value: number }
   /** The last batch number this device sealed (version 3). */
-  | { readonly key: 'batchSeq'; readonly value: number };
+  | { readonly key: 'batchSeq'; readonly value: number }
+  /** Where the next pull starts: the server's cursor from the last pull stored (version 6). */
+  | { readonly key: 'pullCursor'; readonly value: string };
 
 export interface BeadbookDB extends DBSchema {
   meta: { key: MetaRecord['key']; value: MetaRecord };
@@ -45,6 +49,10 @@ export interface BeadbookDB extends DBSchema {
   batches: { key: string; value: SealedBatchRecord; indexes: { byDeviceSeq: number } };
   /** How sending went for each waiting record: its batch, attempts, last error, rejection (version 3). */
   sendLog: { key: string; value: SendState };
+  /** Supervisors' decisions pulled from the server, each with its signed item (version 6). */
+  decisions: { key: string; value: DecisionRecord; indexes: { bySeam: string } };
+  /** Seams the supervisor assigned to this device, each with its signed item (version 6). */
+  assignments: { key: string; value: AssignmentRecord; indexes: { bySeam: string } };
 }
 
 export type UpgradeTransaction = IDBPTransaction<BeadbookDB, StoreNames<BeadbookDB>[], 'versionchange'>;
@@ -106,8 +114,20 @@ function version3(db: IDBPDatabase<BeadbookDB>): void {
   db.createObjectStore('sendLog', { keyPath: 'recordId' });
 }
 
+// placeholder: lands from another branch
+function version4(): void {}
+
+// placeholder: lands from another branch
+function version5(): void {}
+
+/** Version 6: what the device pulls from the server: review decisions and assignments, by id and by seam. */
+function version6(db: IDBPDatabase<BeadbookDB>): void {
+  db.createObjectStore('decisions', { keyPath: 'id' }).createIndex('bySeam', 'seamId');
+  db.createObjectStore('assignments', { keyPath: 'id' }).createIndex('bySeam', 'seamId');
+}
+
 /** MIGRATIONS[n - 1] brings a database from version n - 1 to version n. Append only; never edit a shipped step. */
-export const MIGRATIONS: readonly Migration[] = [version1, version2, version3];
+export const MIGRATIONS: readonly Migration[] = [version1, version2, version3, version4, version5, version6];
 export const DB_VERSION = MIGRATIONS.length;
 
 /**

@@ -1,5 +1,6 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
-import type { SeamRecord } from '../../store/api.js';
+import type { DecisionRecord, SeamRecord } from '../../store/api.js';
+import { decisionLine, DECISION_TEXT } from '../components/DecisionPanel.js';
 import { LevelBadge } from '../components/LevelBadge.js';
 import { requiredLevelOf } from '../components/required-level.js';
 import { matchesSearch, sortSeams } from '../components/seam-search.js';
@@ -7,6 +8,7 @@ import { needsRegrade, regradeOrder, sameSummary, summaryFromGrade } from '../co
 import { hrefOf } from '../router.js';
 import { entryCheckWorker } from '../services/entry-check.js';
 import { getStore } from '../services/store.js';
+import { getSync } from '../services/sync.js';
 
 type Load =
   { state: 'loading' } | { state: 'failed'; message: string } | { state: 'ready'; seams: SeamRecord[] };
@@ -62,7 +64,13 @@ function Welcome({ onDemo, busy }: { readonly onDemo: () => void; readonly busy:
   );
 }
 
-function SeamRow({ rec }: { readonly rec: SeamRecord }) {
+function SeamRow({
+  rec,
+  decision,
+}: {
+  readonly rec: SeamRecord;
+  readonly decision: DecisionRecord | undefined;
+}) {
   const { seam, summary } = rec;
   const required = requiredLevelOf(seam);
   const preset = seam.acceptance.preset;
@@ -84,6 +92,13 @@ function SeamRow({ rec }: { readonly rec: SeamRecord }) {
           {seam.welder ? <span>Welder {seam.welder}</span> : null}
           <span>Required {preset ? `${preset} (${required})` : required}</span>
         </span>
+        {decision ? (
+          <span class="seam-decision" data-outcome={decision.outcome}>
+            <span aria-hidden="true">{DECISION_TEXT[decision.outcome].mark} </span>
+            {decisionLine(decision)}
+            <span class="tag tag-new">new</span>
+          </span>
+        ) : null}
         <span class="seam-level">
           {summary ? (
             <LevelBadge
@@ -114,6 +129,7 @@ export function SeamsScreen() {
   const [query, setQuery] = useState('');
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
+  const [unseen, setUnseen] = useState<Map<string, DecisionRecord>>(() => new Map());
 
   const mounted = useRef(true);
   useEffect(
@@ -126,7 +142,9 @@ export function SeamsScreen() {
   const reload = async () => {
     try {
       const store = await getStore();
-      const seams = sortSeams(await store.listSeams());
+      const [listed, decisions] = await Promise.all([store.listSeams(), store.unseenDecisions()]);
+      const seams = sortSeams(listed);
+      setUnseen(decisions);
       setLoad({ state: 'ready', seams });
       // npm run bench:app times the cold start to this mark: the list is read from storage and on screen.
       if (!performance.getEntriesByName(FIRST_SCREEN_MARK).length) {
@@ -148,6 +166,16 @@ export function SeamsScreen() {
 
   useEffect(() => {
     void reload();
+    // Decisions and assigned seams arrive with a pull: show them when they do.
+    let unsubscribe = () => {};
+    void getSync().then(({ puller }) => {
+      if (!mounted.current) return;
+      unsubscribe = puller.subscribe((outcome) => {
+        if (outcome.kind === 'pulled' && (outcome.applied.decisions || outcome.applied.assignments))
+          void reload();
+      });
+    });
+    return () => unsubscribe();
   }, []);
 
   const loadDemo = async () => {
@@ -212,7 +240,7 @@ export function SeamsScreen() {
       </p>
       <ul class="seam-list">
         {shown.map((rec) => (
-          <SeamRow key={rec.id} rec={rec} />
+          <SeamRow key={rec.id} rec={rec} decision={unseen.get(rec.id)} />
         ))}
       </ul>
     </section>

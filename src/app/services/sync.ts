@@ -1,7 +1,9 @@
-// The page's one sync client: the device vault, and the outbox sender woken on app start, on the `online` event,
-// from "Send now", and by a gentle check while the page is open (so readings saved in range go soon). Tabs share
-// one sender at a time through Web Locks where the browser has them.
+// The page's one sync client: the device vault, the outbox sender woken on app start, on the `online` event, from
+// "Send now", and by a gentle check while the page is open (so readings saved in range go soon), and the puller,
+// which follows every send pass (decisions and assignments come back the same way). Tabs share one sender at a
+// time through Web Locks where the browser has them.
 import { openDeviceVault, type DeviceVault } from '../sync/device-vault.js';
+import { Puller } from '../sync/puller.js';
 import { OutboxSender } from '../sync/sender.js';
 import { fetchTransport } from '../sync/transport.js';
 import { getStore } from './store.js';
@@ -9,6 +11,7 @@ import { getStore } from './store.js';
 export interface SyncClient {
   readonly vault: DeviceVault;
   readonly sender: OutboxSender;
+  readonly puller: Puller;
 }
 
 /** How often an idle sender looks for new records while the page is open. */
@@ -25,12 +28,20 @@ export function getSync(): Promise<SyncClient> {
   client ??= getStore().then((store) => {
     const vault = openDeviceVault();
     const sender = new OutboxSender({ store, vault, transport: fetchTransport, exclusive });
-    return { vault, sender };
+    const puller = new Puller({ store, vault, transport: fetchTransport });
+    // After each send pass that reached its end (sent, or nothing to send), pull what the server has.
+    let lastPass: number | null = null;
+    sender.subscribe((status) => {
+      if (status.state === 'sending' || status.lastPassAt === lastPass) return;
+      lastPass = status.lastPassAt;
+      if (status.state === 'idle') void puller.pullNow();
+    });
+    return { vault, sender, puller };
   });
   return client;
 }
 
-/** Starts sending in the background; called once from main.tsx. Never throws. */
+/** Starts sending (and pulling after it) in the background; called once from main.tsx. Never throws. */
 export function startSync(): void {
   getSync()
     .then(({ sender }) => {
