@@ -4,6 +4,7 @@
 // device through pull; the audit trail and the export a third party verifies with jose alone.
 import { flattenedVerify, importJWK, type JWK } from 'jose';
 import { createHash } from 'node:crypto';
+import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { GRADE_CAUTION, INDICATIVE_CAUTION } from '../../src/domain/index.js';
 import { verifyServerItem, type Decision, type PullReply } from '../../src/protocol/index.js';
@@ -41,6 +42,8 @@ const API = [
   ['PUT', '/api/admin/decisions/x'],
   ['PATCH', '/api/admin/decisions/x'],
   ['DELETE', '/api/admin/decisions/x'],
+  ['GET', '/api/admin/review/export/readings.csv'],
+  ['GET', '/api/admin/review/export/seams.csv'],
 ] as const;
 
 const PAGES = [
@@ -50,6 +53,9 @@ const PAGES = [
   ['GET', '/supervisor/review/seams/x/audit'],
   ['GET', '/supervisor/review/seams/x/export.json'],
   ['GET', '/supervisor/review/batches/x.jws'],
+  ['GET', '/supervisor/review/export/readings.csv'],
+  ['GET', '/supervisor/review/export/seams.csv'],
+  ['GET', '/supervisor/review/report?seam=x'],
 ] as const;
 
 describe('review endpoints: supervisors only', () => {
@@ -508,5 +514,65 @@ describe('audit', () => {
     });
     expect(raw.headers.get('content-type')).toBe('application/jose+json');
     expect(await raw.text()).toBe((await server.storage.getBatch(decodeURIComponent(batchId)))?.jws);
+  });
+});
+
+describe('exports and the report', () => {
+  it('exports readings and seam summaries as CSV with units in the headers', async () => {
+    const server = await testServer();
+    const { seams, readings, tabletA } = await seedYard(server);
+    const res = await server.request(`/supervisor/review/export/readings.csv?seam=${seams.echo.id}`, {
+      headers: { cookie: await server.supervisorCookie() },
+    });
+    expect(res.headers.get('content-disposition')).toBe('attachment; filename="readings.csv"');
+    const parsed = Papa.parse<Record<string, string>>(await res.text(), {
+      header: true,
+      skipEmptyLines: true,
+    });
+    const header = parsed.meta.fields ?? [];
+    expect(header).toContain('toeAngle (deg)');
+    expect(header).toContain('undercutDepth (mm)');
+    expect(header).toContain('position (mm)');
+    expect(header).toContain('recorded at UTC (device clock)');
+    const [wrong, right] = readings['echo'] ?? [];
+    const rows = parsed.data;
+    expect(rows.map((r) => [r['reading id'], r['toeAngle (deg)'], r['status'], r['superseded by']])).toEqual([
+      [wrong?.id, '95', 'superseded', right?.id],
+      [right?.id, '150', 'current', ''],
+    ]);
+    expect(rows[0]?.['device name']).toBe('Tablet A');
+    expect(rows[0]?.['device kid']).toBe(tabletA.kid);
+
+    const summary = await (await server.admin('GET', '/review/export/seams.csv?flag=belowRequired')).text();
+    const [head, line, more] = summary.trim().split('\r\n');
+    expect(head).toContain('level met (server),meets required');
+    expect(line).toContain(
+      `${seams.bravo.id},Seam bravo,no,TAG-bravo,Bay 2,D-2,W-2,WPS-B,ISO 5817:2014,C,graded,D,no`,
+    );
+    expect(more).toBeUndefined();
+  });
+
+  it('prints the inspection report with the level, the decision, unverified rows marked and the caution', async () => {
+    const server = await testServer();
+    const { seams } = await seedYard(server);
+    await server.admin('POST', '/decisions', {
+      seamId: seams.bravo.id,
+      round: 1,
+      outcome: 'rework',
+      comment: 'Dress the toe',
+    });
+    const { status, text } = await page(server, `/supervisor/review/report?seam=${seams.bravo.id}`);
+    expect(status).toBe(200);
+    expect(text).toContain(`Report no. BB-${seams.bravo.id}</strong>, revision 1`);
+    expect(text).toMatch(/Quality level met:[\s\S]*?✘ D \(C required\)/);
+    expect(text).toMatch(/Decision: Sent back for rework<\/strong>\s*on round 1 by\s*supervisor/);
+    expect(text).toContain('UNVERIFIED limit rows');
+    expect(text).toContain('[ISO 17637, test report, from memory]');
+    expect(text).toContain('[common practice]');
+    expect(text).toContain(escapeHtml(GRADE_CAUTION));
+    expect(text).toContain(INDICATIVE_CAUTION);
+    // A selection by the queue's filters prints one report per seam.
+    const many = (await page(server, '/supervisor/review/report?welder=W-1')).text;
+    expect(many.match(/<article class="report"/g)).toHaveLength(2);
   });
 });

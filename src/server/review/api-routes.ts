@@ -5,6 +5,7 @@ import type { AppDeps, AppEnv } from '../deps.js';
 import { parseReviewQuery } from './query.js';
 import { seamDetail, type SeamDetail } from './seam-detail.js';
 import { reviewQueue, seamAudit, seamExport } from './service.js';
+import { readingsExport, seamsExport } from './exports.js';
 
 /** The seam detail as plain JSON (the device map becomes a list). */
 export function detailJson(d: SeamDetail) {
@@ -35,6 +36,16 @@ export function reviewApiRoutes(deps: AppDeps): Hono<AppEnv> {
   app.get('/seams/:id/audit', async (c) => c.json((await seamAudit(deps, c.req.param('id'))).events));
 
   app.get('/seams/:id/export.json', async (c) => c.json(await seamExport(deps, c.req.param('id'))));
+
+  app.get('/export/readings.csv', async (c) => {
+    c.header('Content-Type', 'text/csv; charset=utf-8');
+    return c.body(await readingsExport(deps, new URL(c.req.url).searchParams));
+  });
+
+  app.get('/export/seams.csv', async (c) => {
+    c.header('Content-Type', 'text/csv; charset=utf-8');
+    return c.body(await seamsExport(deps, new URL(c.req.url).searchParams));
+  });
 
   return app;
 }

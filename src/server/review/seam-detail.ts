@@ -168,7 +168,7 @@ export function checkDecision(deps: AppDeps, d: DecisionRow): boolean {
   }
 }
 
-function readingLines(
+export function readingLines(
   review: SeamReview,
   records: readonly StoredRecord[],
   devices: ReadonlyMap<string, Device>,

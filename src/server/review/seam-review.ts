@@ -31,6 +31,8 @@ export interface ReviewOptions {
   readonly readings: 'objects' | 'columns';
   /** The sensitivity study re-evaluates the assessment per input: only the seam page shows it. */
   readonly sensitivity: boolean;
+  /** false: fold and summary only, no grade or assessment (the readings export needs no more). */
+  readonly grade?: boolean;
 }
 
 export function reviewSeam(
@@ -48,7 +50,7 @@ export function reviewSeam(
     summary = gradeFolded(material).summary;
   }
   const none = { folded, summary, stored: fromStore, file: null, grade: null, assessment: null };
-  if (!folded.seam || !folded.rounds.length || summary.state === 'invalid') {
+  if (options.grade === false || !folded.seam || !folded.rounds.length || summary.state === 'invalid') {
     return { ...none, problems: summary.problems };
   }
   const left = new Set(summary.leftOut.map((l) => l.recordId));

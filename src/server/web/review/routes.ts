@@ -15,6 +15,11 @@ import type { Account } from '../../storage/types.js';
 import { auditPage } from './audit-page.js';
 import { queuePage } from './queue-page.js';
 import { seamPage } from './seam-page.js';
+import { PRINT_JS, reportPage } from './report-page.js';
+import { readingsExport, seamsExport, selectedSeams } from '../../review/exports.js';
+
+/** Seams in one printed report at most (each is several pages). */
+const MAX_REPORT = 200;
 
 const page = (c: Context, body: string, status: 200 | 400 | 404 | 409 = 200) => {
   c.header('Cache-Control', 'no-store');
@@ -97,6 +102,40 @@ export function reviewWebRoutes(deps: AppDeps): Hono<AppEnv> {
       'application/json; charset=utf-8',
       `${fileSafe(id)}.audit.json`,
     );
+  });
+
+  app.get('/print.js', (c) => {
+    c.header('Content-Type', 'text/javascript; charset=utf-8');
+    c.header('Cache-Control', 'no-cache');
+    return c.body(PRINT_JS);
+  });
+
+  app.get('/export/readings.csv', async (c) =>
+    download(
+      c,
+      await readingsExport(deps, new URL(c.req.url).searchParams),
+      'text/csv; charset=utf-8',
+      'readings.csv',
+    ),
+  );
+
+  app.get('/export/seams.csv', async (c) =>
+    download(
+      c,
+      await seamsExport(deps, new URL(c.req.url).searchParams),
+      'text/csv; charset=utf-8',
+      'seams.csv',
+    ),
+  );
+
+  app.get('/report', async (c) => {
+    const params = new URL(c.req.url).searchParams;
+    const ids = await selectedSeams(deps, params, MAX_REPORT + 1);
+    const details = [];
+    for (const id of ids.slice(0, MAX_REPORT))
+      details.push(await seamDetail(deps, id, { sensitivity: false }));
+    const more = ids.length > MAX_REPORT;
+    return page(c, reportPage(me(c).username, details, deps.now().toISOString(), more));
   });
 
   app.get('/batches/:file{.+\\.jws}', async (c) => {
