@@ -362,6 +362,8 @@ describe('decisions', () => {
       round: '1',
       comment: 'Grind the toe at 100 mm',
     });
+    // Without the page's basedOn the decision covers every record held: the seam counts as reviewed.
+    expect((await queue(server, 'flag=unreviewed')).labels).not.toContain('bravo');
     expect(ok.status).toBe(303);
     expect(ok.headers.get('location')).toBe(`/supervisor/review/seams/${seams.bravo.id}?decided=rework`);
     const shown = (await page(server, ok.headers.get('location') ?? '')).text;

@@ -62,7 +62,8 @@ export function reviewWebRoutes(deps: AppDeps): Hono<AppEnv> {
     const form = await readForm(c, max);
     const outcome = form.get('outcome') ?? '';
     const round = Number(form.get('round'));
-    const basedOn = Number(form.get('basedOn'));
+    const basedOnText = form.get('basedOn') ?? '';
+    const basedOn = basedOnText === '' ? Number.NaN : Number(basedOnText);
     try {
       if (!(DECISION_OUTCOMES as readonly string[]).includes(outcome))
         throw new HttpError(
