@@ -9,7 +9,6 @@ import { uuidv7 } from './ids.js';
 import { appendReading } from './reading-writes.js';
 import * as reads from './reads.js';
 import { DEFAULT_DB_NAME } from './schema.js';
-import * as pulled from './pulled.js';
 import * as sendLog from './send-log.js';
 import { answerChecklist, saveSeam, setSummary, startRound } from './seam-writes.js';
 
@@ -29,6 +28,8 @@ export interface OpenStoreOptions {
 }
 
 /** Opens (creating or upgrading as needed) the database and resolves once it is ready to use. */
+const pulled = () => import('./pulled.js');
+
 export async function openStore(options: OpenStoreOptions = {}): Promise<Store> {
   const now = options.now ?? (() => new Date().toISOString());
   const conn = new Connection({
@@ -63,12 +64,13 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     settleBatch: (batchId, answers) => sendLog.settleBatch(ctx, batchId, answers),
     releaseBatch: (batchId) => sendLog.releaseBatch(ctx, batchId),
     acknowledge: (recordIds) => sendLog.acknowledge(ctx, recordIds),
-    pullCursor: () => pulled.pullCursor(ctx),
-    receivePulled: (items, cursor) => pulled.receivePulled(ctx, items, cursor),
-    listDecisions: (seamId) => pulled.listDecisions(ctx, seamId),
-    unseenDecisions: () => pulled.unseenDecisions(ctx),
-    markDecisionsSeen: (seamId) => pulled.markDecisionsSeen(ctx, seamId),
-    listAssignments: (seamId) => pulled.listAssignments(ctx, seamId),
+    // Pulled decisions and assignments: loaded on first use, outside the first paint.
+    pullCursor: async () => (await pulled()).pullCursor(ctx),
+    receivePulled: async (items, cursor) => (await pulled()).receivePulled(ctx, items, cursor),
+    listDecisions: async (seamId) => (await pulled()).listDecisions(ctx, seamId),
+    unseenDecisions: async () => (await pulled()).unseenDecisions(ctx),
+    markDecisionsSeen: async (seamId) => (await pulled()).markDecisionsSeen(ctx, seamId),
+    listAssignments: async (seamId) => (await pulled()).listAssignments(ctx, seamId),
     exportBackup: () => exportBackup(ctx),
     importBackup: (data) => importBackup(ctx, data),
     loadDemo: () => loadDemo(ctx),

@@ -1,6 +1,7 @@
 // What the device pulls from the server — review decisions and assignments, each verified by the sync client
 // before it gets here — kept with the cursor in one transaction, so a pull is stored whole or not at all and the
-// next pull starts after exactly what was kept. Items are kept by id: pulling one again changes nothing.
+// next pull starts after exactly what was kept. Items are kept by id: pulling one again changes nothing. The store
+// loads this module on first use, outside the first paint.
 import type {
   AssignmentRecord,
   DecisionRecord,
@@ -9,16 +10,22 @@ import type {
   RoundRecord,
   SeamRecord,
 } from './api.js';
-import { checkSeam } from './check-input.js';
 import type { StoreContext } from './context.js';
-import { entryForAdd, outboxEntry, roundBody, seamKeyRange } from './records.js';
+import type { OutboxEntry } from './api.js';
 
 const MAX_ROUND = 999;
 
-export async function pullCursor(ctx: StoreContext): Promise<string | null> {
-  const row = await ctx.conn.run(['meta'], 'readonly', (tx) => tx.store.get('pullCursor'));
-  return row?.key === 'pullCursor' ? row.value : null;
-}
+// The round record the outbox carries, and one seam's rounds as a key range: the same as records.ts, written out
+// here so this module (loaded later) does not split the store's first-paint chunk.
+const roundEntry = (round: RoundRecord, recordId: string, now: string): OutboxEntry =>
+  ({
+    recordId,
+    kind: 'round',
+    seamId: round.seamId,
+    body: { seamId: round.seamId, number: round.number, kind: round.kind, startedAt: round.startedAt },
+    createdAt: now,
+  }) as OutboxEntry;
+const roundsOf = (seamId: string) => IDBKeyRange.bound([seamId, -Infinity], [seamId, Infinity]);
 
 export async function receivePulled(
   ctx: StoreContext,
@@ -26,12 +33,9 @@ export async function receivePulled(
   cursor: string,
 ): Promise<PullApplied> {
   const now = ctx.now();
-  // Ids and checks made before the transaction: nothing but IndexedDB requests may be awaited inside it.
-  const prepared = items.map((item) =>
-    item.type === 'assignment'
-      ? { item, seam: checkSeam(item.seam), roundId: ctx.newId() }
-      : { item, roundId: ctx.newId() },
-  );
+  // Ids made before the transaction: nothing but IndexedDB requests may be awaited inside it. The seams need no
+  // check here: the puller kept only items the server signed and the protocol's schema (the seam schema) passed.
+  const prepared = items.map((item) => ({ item, roundId: ctx.newId() }));
   return ctx.conn.run(
     ['meta', 'seams', 'rounds', 'outbox', 'decisions', 'assignments'],
     'readwrite',
@@ -45,11 +49,11 @@ export async function receivePulled(
           const a = p.item;
           if (await tx.objectStore('assignments').getKey(a.id)) continue;
           let seamAdded = false;
-          if ('seam' in p && p.seam && (await seams.getKey(a.seamId)) === undefined) {
+          if ((await seams.getKey(a.seamId)) === undefined) {
             const record: SeamRecord = {
               id: a.seamId,
               namespace: 'live',
-              seam: p.seam,
+              seam: a.seam,
               revision: 1,
               createdAt: now,
               updatedAt: now,
@@ -64,7 +68,7 @@ export async function receivePulled(
             await seams.add(record);
             await rounds.add(first);
             // The set-up came from the server; the round started here is this device's record to send.
-            await outbox.add(entryForAdd(outboxEntry('round', p.roundId, roundBody(first), now)));
+            await outbox.add(roundEntry(first, p.roundId, now));
             seamAdded = true;
             applied.seamsAdded += 1;
           }
@@ -88,7 +92,7 @@ export async function receivePulled(
         const seam = await seams.get(d.seamId);
         if (d.outcome === 'rework' && seam) {
           // Rework opens the next round, once: only when the decision is on the device's latest round.
-          const last = await rounds.openCursor(seamKeyRange(d.seamId), 'prev');
+          const last = await rounds.openCursor(roundsOf(d.seamId), 'prev');
           const latest = last?.value.number ?? 0;
           if (latest === d.round && latest < MAX_ROUND) {
             const round: RoundRecord = {
@@ -99,8 +103,7 @@ export async function receivePulled(
               checklist: {},
             };
             await rounds.add(round);
-            if (seam.namespace === 'live')
-              await outbox.add(entryForAdd(outboxEntry('round', p.roundId, roundBody(round), now)));
+            if (seam.namespace === 'live') await outbox.add(roundEntry(round, p.roundId, now));
             roundOpened = round.number;
             applied.roundsOpened += 1;
           }
@@ -124,6 +127,11 @@ export async function receivePulled(
       return applied;
     },
   );
+}
+
+export async function pullCursor(ctx: StoreContext): Promise<string | null> {
+  const row = await ctx.conn.run(['meta'], 'readonly', (tx) => tx.store.get('pullCursor'));
+  return row?.key === 'pullCursor' ? row.value : null;
 }
 
 const byDecidedAt = (a: DecisionRecord, b: DecisionRecord) =>

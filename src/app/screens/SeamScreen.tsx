@@ -27,7 +27,7 @@ import { summaryFromGrade } from '../components/summary.js';
 import { hrefOf } from '../router.js';
 import { gradeInWorker } from '../services/grading.js';
 import { getStore } from '../services/store.js';
-import { getSync } from '../services/sync.js';
+import { onPulled } from '../services/sync.js';
 
 type Graded =
   { ok: true; grade: SeamGrade; assessment: SeamAssessment } | { ok: false; problems: Problem[] } | null;
@@ -201,18 +201,9 @@ export default function SeamScreen({ id }: { readonly id: string }) {
     setSelected(null);
     void load();
     // A decision pulled while the seam is open shows at once (a rework decision also opens a round).
-    let unsubscribe = () => {};
-    let alive = true;
-    void getSync().then(({ puller }) => {
-      if (!alive) return;
-      unsubscribe = puller.subscribe((outcome) => {
-        if (outcome.kind === 'pulled' && outcome.applied.decisions) void load();
-      });
+    return onPulled((outcome) => {
+      if (outcome.kind === 'pulled' && outcome.applied.decisions) void load();
     });
-    return () => {
-      alive = false;
-      unsubscribe();
-    };
   }, [id]);
 
   if (error) {

@@ -1,6 +1,6 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import type { DecisionRecord, SeamRecord } from '../../store/api.js';
-import { decisionLine, DECISION_TEXT } from '../components/DecisionPanel.js';
+import { decisionLine, DECISION_TEXT } from '../components/decision-text.js';
 import { LevelBadge } from '../components/LevelBadge.js';
 import { requiredLevelOf } from '../components/required-level.js';
 import { matchesSearch, sortSeams } from '../components/seam-search.js';
@@ -8,7 +8,7 @@ import { needsRegrade, regradeOrder, sameSummary, summaryFromGrade } from '../co
 import { hrefOf } from '../router.js';
 import { entryCheckWorker } from '../services/entry-check.js';
 import { getStore } from '../services/store.js';
-import { getSync } from '../services/sync.js';
+import { onPulled } from '../services/sync.js';
 
 type Load =
   { state: 'loading' } | { state: 'failed'; message: string } | { state: 'ready'; seams: SeamRecord[] };
@@ -167,13 +167,9 @@ export function SeamsScreen() {
   useEffect(() => {
     void reload();
     // Decisions and assigned seams arrive with a pull: show them when they do.
-    let unsubscribe = () => {};
-    void getSync().then(({ puller }) => {
-      if (!mounted.current) return;
-      unsubscribe = puller.subscribe((outcome) => {
-        if (outcome.kind === 'pulled' && (outcome.applied.decisions || outcome.applied.assignments))
-          void reload();
-      });
+    const unsubscribe = onPulled((outcome) => {
+      if (outcome.kind === 'pulled' && (outcome.applied.decisions || outcome.applied.assignments))
+        void reload();
     });
     return () => unsubscribe();
   }, []);
