@@ -86,7 +86,7 @@ figure.strip { margin: 0.5rem 0; overflow-x: auto; }
 .report table { font-size: 0.85rem; }
 .report th, .report td { padding: 0.25rem 0.35rem; }
 .report .source { color: #56636e; font-size: 0.75rem; font-weight: normal; }
-.report-head { display: grid; grid-template-columns: 1fr auto; gap: 0.5rem; }
+.report-head { display: grid; grid-template-columns: minmax(0, 3fr) minmax(0, 2fr); gap: 1rem; }
 .signatures { display: grid; grid-template-columns: 1fr 1fr; gap: 1rem; }
 .signatures div { border-top: 1px solid #1d2b36; padding-top: 0.25rem; min-height: 3rem; }
 .print-only { display: none; }
