@@ -18,57 +18,17 @@ import {
   fmtNumber,
   fmtToe,
   fmtValue,
-  JOINT_LABEL,
   PARAM_LABEL,
-  PREPARATION_LABEL,
   ROUND_KIND_LABEL,
-  SETTING_LABEL,
-  SURFACE_LABEL,
 } from '../../../app/components/format.js';
-import { requiredText } from '../../../app/components/required-level.js';
+import { setupRows as tabletSetupRows } from '../../../app/components/setup-rows.js';
 import { html, type Html } from '../html.js';
 import type { BatchCheck, DecisionLine, ReadingLine, SeamDetail } from '../../review/seam-detail.js';
 import { level, outcomeBadge, plural, stateText, utc, verdict } from './parts.js';
 
+/** The set-up as the tablet shows it, and what the review adds: when welded, where, and the tags. */
 export function setupRows(seam: Seam): [string, string][] {
-  const j = seam.joint;
-  const rows: [string, string][] = [
-    [
-      'Joint',
-      [
-        JOINT_LABEL[j.type],
-        j.preparation ? (PREPARATION_LABEL[j.preparation] ?? j.preparation) : null,
-        j.sides === 'one' ? 'one-sided' : 'two-sided',
-        SETTING_LABEL[j.setting] ?? j.setting,
-      ]
-        .filter(Boolean)
-        .join(', ') + (j.faceSideNote ? ` (face: ${j.faceSideNote})` : ''),
-    ],
-    ['Plate 1 (loaded / main)', `t1 = ${fmtNumber(seam.plate1.thickness)} mm`],
-    ['Plate 2', `t2 = ${fmtNumber(seam.plate2.thickness)} mm`],
-  ];
-  if (seam.buttThickness !== undefined)
-    rows.push(['Butt-weld thickness', `s = ${fmtNumber(seam.buttThickness)} mm`]);
-  if (seam.nominalThroat !== undefined)
-    rows.push(['Nominal throat', `a = ${fmtNumber(seam.nominalThroat)} mm`]);
-  if (seam.nominalLegs)
-    rows.push([
-      'Nominal legs',
-      `z1 = ${fmtNumber(seam.nominalLegs.leg1)} mm, z2 = ${fmtNumber(seam.nominalLegs.leg2)} mm`,
-    ]);
-  rows.push(
-    ['Length', `${fmtNumber(seam.length)} mm${seam.circumferential ? ', circumferential' : ''}`],
-    ['Surface', SURFACE_LABEL[seam.surface] ?? seam.surface],
-    [
-      'Material',
-      `${seam.material.name}${seam.material.group ? `, ISO/TR 15608 group ${seam.material.group}` : ''} (${seam.material.kind})`,
-    ],
-    ['Required', requiredText(seam)],
-    ['Acceptance criteria', seam.acceptance.edition],
-  );
-  if (seam.process) rows.push(['Welding process (ISO 4063)', seam.process]);
-  if (seam.welder) rows.push(['Welder', seam.welder]);
-  if (seam.procedure) rows.push(['Procedure (WPS)', seam.procedure]);
+  const rows = tabletSetupRows(seam);
   if (seam.weldedAt) rows.push(['Welding finished', utc(seam.weldedAt)]);
   if (seam.organisation) rows.push(['Organisation', seam.organisation]);
   if (seam.area) rows.push(['Area', seam.area]);
