@@ -10,6 +10,7 @@ const BENCHES = [
   'ingest.bench.js',
   'import.bench.js',
   'tag-decode.bench.js',
+  'review.bench.js',
   join('app', 'app.bench.js'),
 ];
 

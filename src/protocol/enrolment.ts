@@ -7,14 +7,8 @@ import { obj, text } from '../domain/model/schema-kit.js';
 import { canonicalJson } from './canonical-json.js';
 import { ProtocolError } from './errors.js';
 import { KID_PATTERN, thumbprint, toPublicJwk, type PublicJwk } from './jwk.js';
-import {
-  decodeJsonSegment,
-  jwsBody,
-  parseFlattenedJws,
-  readProtectedHeader,
-  signJws,
-  verifyJws,
-} from './jws.js';
+import { decodeJsonSegment, jwsBody, parseFlattenedJws, readProtectedHeader, signJws } from './jws.js';
+import { verifyJws } from './jws-verify.js';
 import { parsePayload, protocolField } from './payload.js';
 import { randomBytes } from './platform.js';
 import { PROTOCOL_VERSION } from './version.js';

@@ -4,6 +4,7 @@ export * from './errors.js';
 export * from './canonical-json.js';
 export * from './jwk.js';
 export * from './jws.js';
+export * from './jws-verify.js';
 export * from './records.js';
 export * from './batch.js';
 export * from './device-key.js';

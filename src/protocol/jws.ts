@@ -1,7 +1,7 @@
 // Flattened JWS (RFC 7515 §7.2.2) with ES256 only. The header is checked strictly here before jose verifies the
 // signature over the exact bytes received: `alg` must be ES256 (so `none` and HMAC never reach a key), `typ` must
 // name the expected kind of message, `kid` must be a thumbprint, and a `crit` list or any other member is refused.
-import { base64url, flattenedVerify, FlattenedSign, type CryptoKey, type JWK } from 'jose';
+import { base64url, FlattenedSign, type CryptoKey, type JWK } from 'jose';
 import { ProtocolError } from './errors.js';
 import { KID_PATTERN } from './jwk.js';
 import { utf8Decode, utf8Encode } from './platform.js';
@@ -120,41 +120,6 @@ export function readProtectedHeader(jws: FlattenedJws, kind: JwsKind): Protected
     throw new ProtocolError('header', "kid must be the key's RFC 7638 thumbprint (43 base64url characters)");
   }
   return { alg: JWS_ALG, kid, typ: expected };
-}
-
-export interface Verified {
-  readonly header: ProtectedHeader;
-  /** The payload exactly as signed, decoded from base64url and UTF-8. */
-  readonly payloadText: string;
-  readonly payload: unknown;
-}
-
-/**
- * Verifies the signature over the exact bytes received with the given key, after the strict header checks. The
- * header's kid is not trusted to pick the key: the caller looked the key up by that kid and passes it here.
- */
-export async function verifyJws(jws: FlattenedJws, kind: JwsKind, key: VerifyKey): Promise<Verified> {
-  const header = readProtectedHeader(jws, kind);
-  let payloadBytes: Uint8Array;
-  try {
-    const result = await flattenedVerify(jws, key, { algorithms: [JWS_ALG], crit: {} });
-    payloadBytes = result.payload;
-  } catch {
-    throw new ProtocolError('signature', 'the signature does not verify with the key this kid names');
-  }
-  let payloadText: string;
-  try {
-    payloadText = utf8Decode(payloadBytes);
-  } catch {
-    throw new ProtocolError('malformed', 'the payload is not UTF-8');
-  }
-  let payload: unknown;
-  try {
-    payload = JSON.parse(payloadText) as unknown;
-  } catch {
-    throw new ProtocolError('malformed', 'the payload is not JSON');
-  }
-  return { header, payloadText, payload };
 }
 
 /** Signs the payload text (sent as its UTF-8 bytes) with an ES256 private key. */

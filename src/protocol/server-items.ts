@@ -8,7 +8,8 @@ import { choice, count, isoTimestamp, obj, text } from '../domain/model/schema-k
 import { canonicalJson } from './canonical-json.js';
 import { ProtocolError } from './errors.js';
 import type { PublicJwk } from './jwk.js';
-import { parseFlattenedJws, signJws, verifyJws, type FlattenedJws } from './jws.js';
+import { parseFlattenedJws, signJws, type FlattenedJws } from './jws.js';
+import { verifyJws } from './jws-verify.js';
 import { parsePayload, protocolField } from './payload.js';
 import { PROTOCOL_VERSION } from './version.js';
 

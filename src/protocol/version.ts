@@ -16,6 +16,8 @@ export const JWS_TYPES = {
   enrol: 'beadbook-enrol+jws',
   pull: 'beadbook-pull+jws',
   server: 'beadbook-server+jws',
+  /** A supervisor's review decision as the server recorded it (kept for audit and exports; never pulled). */
+  decision: 'beadbook-decision+jws',
 } as const;
 
 export type JwsKind = keyof typeof JWS_TYPES;

@@ -10,6 +10,7 @@ import type { AppDeps, AppEnv } from './deps.js';
 import { Regrader } from './grading/regrade.js';
 import { HttpError, fromProtocolError } from './http/errors.js';
 import { RateLimiter } from './http/rate-limit.js';
+import { ReviewIndexer } from './review/indexer.js';
 import { securityHeaders } from './http/security-headers.js';
 import { serveApp } from './http/static.js';
 import type { Logger } from './log.js';
@@ -45,6 +46,7 @@ export async function createApp(options: AppOptions): Promise<BeadbookApp> {
     now,
     serverKey: await loadServerKey(storage, now()),
     regrader: new Regrader(storage, now, log),
+    reviewIndexer: new ReviewIndexer(storage, now, log),
     deviceKeys: new DeviceKeyCache(),
     limiters: {
       login: new RateLimiter(config.limits.login, () => now().getTime()),
@@ -53,8 +55,10 @@ export async function createApp(options: AppOptions): Promise<BeadbookApp> {
     secure: config.tls !== null,
   };
 
-  // Records stored before a stop whose re-grade had not run yet: grade them now.
+  // Records stored before a stop whose re-grade had not run yet: grade them now; review facts follow each grade.
+  deps.regrader.onGraded((seamId) => deps.reviewIndexer.schedule([seamId]));
   deps.regrader.schedule(await storage.staleSeams());
+  deps.reviewIndexer.schedule(await storage.staleReviewFacts());
 
   const app = new Hono<AppEnv>();
   // Request ids only tie a client's error message to the log lines: unique per process run is enough.

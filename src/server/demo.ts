@@ -70,6 +70,7 @@ export async function loadDemoYard(deps: AppDeps): Promise<{ seams: number; reco
     deps.regrader.schedule([seamId]);
   }
   await deps.regrader.idle();
+  await deps.reviewIndexer.idle();
   deps.log.info('demoLoaded', { seams, records });
   return { seams, records };
 }

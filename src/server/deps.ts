@@ -3,6 +3,7 @@ import type { ServerConfig } from './config.js';
 import type { Logger } from './log.js';
 import type { Regrader } from './grading/regrade.js';
 import type { RateLimiter } from './http/rate-limit.js';
+import type { ReviewIndexer } from './review/indexer.js';
 import type { Account, Storage } from './storage/types.js';
 import type { DeviceKeyCache } from './sync/device-keys.js';
 import type { ServerSigningKey } from './sync/server-key.js';
@@ -14,6 +15,8 @@ export interface AppDeps {
   readonly now: () => Date;
   readonly serverKey: ServerSigningKey;
   readonly regrader: Regrader;
+  /** Review facts (what the queue filters on), made after each re-grade. */
+  readonly reviewIndexer: ReviewIndexer;
   readonly deviceKeys: DeviceKeyCache;
   readonly limiters: { readonly login: RateLimiter; readonly sync: RateLimiter };
   /** Whether the browser reaches this server over https (decides the cookie's Secure flag and HSTS). */

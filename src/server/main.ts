@@ -62,7 +62,7 @@ async function main(): Promise<void> {
     stopping = true;
     log.info('stopping', { signal });
     server.close(() => {
-      void deps.regrader.idle().finally(() => {
+      void Promise.all([deps.regrader.idle(), deps.reviewIndexer.idle()]).finally(() => {
         void storage.close().then(() => process.exit(0));
       });
     });

@@ -154,6 +154,76 @@ export interface SendState {
   readonly rejected?: { readonly reason: string; readonly at: string };
 }
 
+/** A flattened JWS as the server signed it (kept so the item can be checked again later). */
+export interface SignedItem {
+  readonly protected: string;
+  readonly payload: string;
+  readonly signature: string;
+}
+
+/** A supervisor's review decision on a seam, as pulled and verified (version 6). */
+export interface DecisionRecord {
+  readonly id: string;
+  readonly seamId: string;
+  readonly round: number;
+  readonly outcome: 'accepted' | 'rework' | 'moreReadings';
+  readonly comment?: string;
+  readonly decidedBy: string;
+  /** Server clock. */
+  readonly decidedAt: string;
+  /** Device clock: when the pull stored it. */
+  readonly receivedAt: string;
+  /** When the inspector saw it on the seam's screen; until then the Seams list points it out. */
+  readonly seenAt?: string;
+  /** The round a "rework" decision opened on this device. */
+  readonly roundOpened?: number;
+  readonly signed: SignedItem;
+}
+
+/** A seam the supervisor assigned to this device (version 6). */
+export interface AssignmentRecord {
+  readonly id: string;
+  readonly seamId: string;
+  readonly note?: string;
+  readonly assignedBy: string;
+  readonly assignedAt: string;
+  readonly receivedAt: string;
+  /** Whether the seam was set up on this device from the assignment (false: it was here already). */
+  readonly seamAdded: boolean;
+  readonly signed: SignedItem;
+}
+
+/** One verified item of a pull, with the signed form it came in. */
+export type PulledItem =
+  | {
+      readonly type: 'decision';
+      readonly id: string;
+      readonly seamId: string;
+      readonly round: number;
+      readonly outcome: DecisionRecord['outcome'];
+      readonly comment?: string;
+      readonly decidedBy: string;
+      readonly decidedAt: string;
+      readonly signed: SignedItem;
+    }
+  | {
+      readonly type: 'assignment';
+      readonly id: string;
+      readonly seamId: string;
+      readonly seam: Seam;
+      readonly note?: string;
+      readonly assignedBy: string;
+      readonly assignedAt: string;
+      readonly signed: SignedItem;
+    };
+
+export interface PullApplied {
+  readonly decisions: number;
+  readonly assignments: number;
+  readonly seamsAdded: number;
+  readonly roundsOpened: number;
+}
+
 /** A waiting record with its send state, for the Outbox screen. */
 export interface OutboxItem {
   readonly entry: OutboxEntry;
@@ -284,6 +354,21 @@ export interface Store {
   releaseBatch(batchId: string): Promise<void>;
   /** Takes acknowledged records out of the outbox (and nothing else: readings stay). Returns how many left. */
   acknowledge(recordIds: readonly string[]): Promise<number>;
+  /** The cursor the next pull starts from (null before the first). */
+  pullCursor(): Promise<string | null>;
+  /**
+   * Keeps verified pulled items and the new cursor in one transaction. An assignment of a seam not on this device
+   * sets it up (its first round is queued for the server; the set-up itself came from there); a "rework" decision
+   * on the device's latest round opens the next round. An item already held changes nothing.
+   */
+  receivePulled(items: readonly PulledItem[], cursor: string): Promise<PullApplied>;
+  /** The seam's decisions, oldest first. */
+  listDecisions(seamId: string): Promise<DecisionRecord[]>;
+  /** The newest decision of each seam that the inspector has not seen yet, by seam id. */
+  unseenDecisions(): Promise<Map<string, DecisionRecord>>;
+  /** Marks the seam's decisions as seen now. */
+  markDecisionsSeen(seamId: string): Promise<void>;
+  listAssignments(seamId: string): Promise<AssignmentRecord[]>;
   exportBackup(): Promise<BackupFile>;
   importBackup(data: unknown): Promise<ImportReport>;
   /** Stores the demo yard in the 'demo' namespace; returns how many demo seams were added (0 when already loaded). */

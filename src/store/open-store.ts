@@ -31,6 +31,8 @@ export interface OpenStoreOptions {
 }
 
 /** Opens (creating or upgrading as needed) the database and resolves once it is ready to use. */
+const pulled = () => import('./pulled.js');
+
 export async function openStore(options: OpenStoreOptions = {}): Promise<Store> {
   const now = options.now ?? (() => new Date().toISOString());
   const conn = new Connection({
@@ -77,6 +79,13 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     linkTag: async (seamId, tag, via, confirmedFrom) =>
       (await tagWrites()).linkTag(ctx, seamId, tag, via, confirmedFrom),
     unlinkTag: async (seamId, tag) => (await tagWrites()).unlinkTag(ctx, seamId, tag),
+    // Pulled decisions and assignments: loaded on first use, outside the first paint.
+    pullCursor: async () => (await pulled()).pullCursor(ctx),
+    receivePulled: async (items, cursor) => (await pulled()).receivePulled(ctx, items, cursor),
+    listDecisions: async (seamId) => (await pulled()).listDecisions(ctx, seamId),
+    unseenDecisions: async () => (await pulled()).unseenDecisions(ctx),
+    markDecisionsSeen: async (seamId) => (await pulled()).markDecisionsSeen(ctx, seamId),
+    listAssignments: async (seamId) => (await pulled()).listAssignments(ctx, seamId),
     loadDemo: () => loadDemo(ctx),
     removeDemo: () => removeDemo(ctx),
     close: () => conn.close(),

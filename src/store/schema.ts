@@ -3,6 +3,8 @@
 import type { DBSchema, IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
 import type {
   ImportRecord,
+  AssignmentRecord,
+  DecisionRecord,
   Namespace,
   OutboxEntry,
   ReadingRecord,
@@ -22,7 +24,9 @@ export type MetaRecord =
   /** The last batch number this device sealed (version 3). */
   | { readonly key: 'batchSeq'; readonly value: number }
   /** A scanner import: the file's hash, name and counts (kept in meta, so no schema change was needed). */
-  | { readonly key: `import:${string}`; readonly record: ImportRecord };
+  | { readonly key: `import:${string}`; readonly record: ImportRecord }
+  /** Where the next pull starts: the server's cursor from the last pull stored (version 6). */
+  | { readonly key: 'pullCursor'; readonly value: string };
 
 export interface BeadbookDB extends DBSchema {
   meta: { key: MetaRecord['key']; value: MetaRecord };
@@ -55,6 +59,10 @@ export interface BeadbookDB extends DBSchema {
     value: TagLinkRecord;
     indexes: { bySeam: string; byNamespace: Namespace };
   };
+  /** Supervisors' decisions pulled from the server, each with its signed item (version 6). */
+  decisions: { key: string; value: DecisionRecord; indexes: { bySeam: string } };
+  /** Seams the supervisor assigned to this device, each with its signed item (version 6). */
+  assignments: { key: string; value: AssignmentRecord; indexes: { bySeam: string } };
 }
 
 export type UpgradeTransaction = IDBPTransaction<BeadbookDB, StoreNames<BeadbookDB>[], 'versionchange'>;
@@ -126,8 +134,17 @@ function version4(db: IDBPDatabase<BeadbookDB>): void {
   links.createIndex('byNamespace', 'namespace');
 }
 
+/** Version 5 changed nothing: the number was kept for scanner imports, which went into `meta` instead. */
+function version5(): void {}
+
+/** Version 6: what the device pulls from the server: review decisions and assignments, by id and by seam. */
+function version6(db: IDBPDatabase<BeadbookDB>): void {
+  db.createObjectStore('decisions', { keyPath: 'id' }).createIndex('bySeam', 'seamId');
+  db.createObjectStore('assignments', { keyPath: 'id' }).createIndex('bySeam', 'seamId');
+}
+
 /** MIGRATIONS[n - 1] brings a database from version n - 1 to version n. Append only; never edit a shipped step. */
-export const MIGRATIONS: readonly Migration[] = [version1, version2, version3, version4];
+export const MIGRATIONS: readonly Migration[] = [version1, version2, version3, version4, version5, version6];
 export const DB_VERSION = MIGRATIONS.length;
 
 /**

@@ -117,9 +117,11 @@ export async function testServer(options: TestServerOptions = {}): Promise<TestS
     },
     async settle() {
       await built.deps.regrader.idle();
+      await built.deps.reviewIndexer.idle();
     },
     async close() {
       await built.deps.regrader.idle();
+      await built.deps.reviewIndexer.idle();
       await storage.close();
     },
   };

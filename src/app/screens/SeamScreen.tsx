@@ -7,7 +7,14 @@ import type {
   SeamAssessment,
   SeamGrade,
 } from '../../domain/index.js';
-import type { ChecklistAnswer, ReadingRecord, RoundRecord, SeamRecord } from '../../store/api.js';
+import type {
+  ChecklistAnswer,
+  DecisionRecord,
+  ReadingRecord,
+  RoundRecord,
+  SeamRecord,
+} from '../../store/api.js';
+import { DecisionPanel } from '../components/DecisionPanel.js';
 import { ChecklistPanel } from '../components/ChecklistPanel.js';
 import { fmtLevel, fmtWhen, ROUND_KIND_LABEL } from '../components/format.js';
 import { GradePanel } from '../components/GradePanel.js';
@@ -21,6 +28,7 @@ import { summaryFromGrade } from '../components/summary.js';
 import { hrefOf } from '../router.js';
 import { gradeInWorker } from '../services/grading.js';
 import { getStore } from '../services/store.js';
+import { onPulled } from '../services/sync.js';
 
 type Graded =
   { ok: true; grade: SeamGrade; assessment: SeamAssessment } | { ok: false; problems: Problem[] } | null;
@@ -32,6 +40,9 @@ interface Loaded {
   readonly rec: SeamRecord;
   readonly rounds: RoundRecord[];
   readonly readings: ReadingRecord[];
+  readonly decisions: DecisionRecord[];
+  /** Decisions not seen before this screen showed them (marked seen as it opens). */
+  readonly unseen: ReadonlySet<string>;
 }
 
 const errorText = (e: unknown) => (e instanceof Error ? e.message : String(e));
@@ -170,8 +181,15 @@ export default function SeamScreen({ id }: { readonly id: string }) {
         setData('missing');
         return;
       }
-      const [rounds, readings] = await Promise.all([store.listRounds(id), store.listReadings(id)]);
-      setData({ rec, rounds, readings });
+      const [rounds, readings, decisions] = await Promise.all([
+        store.listRounds(id),
+        store.listReadings(id),
+        store.listDecisions(id),
+      ]);
+      const unseen = new Set(decisions.filter((d) => d.seenAt === undefined).map((d) => d.id));
+      setData({ rec, rounds, readings, decisions, unseen });
+      // Shown now: the Seams list stops pointing these decisions out.
+      if (unseen.size) await store.markDecisionsSeen(id);
       await regrade();
     } catch (e) {
       setError(errorText(e));
@@ -183,6 +201,10 @@ export default function SeamScreen({ id }: { readonly id: string }) {
     setGraded(null);
     setSelected(null);
     void load();
+    // A decision pulled while the seam is open shows at once (a rework decision also opens a round).
+    return onPulled((outcome) => {
+      if (outcome.kind === 'pulled' && outcome.applied.decisions) void load();
+    });
   }, [id]);
 
   if (error) {
@@ -201,7 +223,7 @@ export default function SeamScreen({ id }: { readonly id: string }) {
       </p>
     );
   }
-  const { rec, rounds, readings } = data;
+  const { rec, rounds, readings, decisions, unseen } = data;
   const seam = rec.seam;
   const sortedRounds = [...rounds].sort((a, b) => a.number - b.number);
   const latest = sortedRounds[sortedRounds.length - 1];
@@ -271,6 +293,8 @@ export default function SeamScreen({ id }: { readonly id: string }) {
         </div>
         <LinkedTags seamId={id} />
       </header>
+
+      <DecisionPanel decisions={decisions} unseen={unseen} />
 
       <div class="seam-top">
         {grade ? (

@@ -1,5 +1,6 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
-import type { SeamRecord } from '../../store/api.js';
+import type { DecisionRecord, SeamRecord } from '../../store/api.js';
+import { decisionLine, DECISION_TEXT } from '../components/decision-text.js';
 import { LevelBadge } from '../components/LevelBadge.js';
 import { requiredLevelOf } from '../components/required-level.js';
 import { matchesSearch, sortSeams } from '../components/seam-search.js';
@@ -7,6 +8,7 @@ import { needsRegrade, regradeOrder, sameSummary, summaryFromGrade } from '../co
 import { hrefOf } from '../router.js';
 import { entryCheckWorker } from '../services/entry-check.js';
 import { getStore } from '../services/store.js';
+import { onPulled } from '../services/sync.js';
 
 type Load =
   | { state: 'loading' }
@@ -71,7 +73,13 @@ function Welcome({ onDemo, busy }: { readonly onDemo: () => void; readonly busy:
   );
 }
 
-function SeamRow({ rec }: { readonly rec: SeamRecord }) {
+function SeamRow({
+  rec,
+  decision,
+}: {
+  readonly rec: SeamRecord;
+  readonly decision: DecisionRecord | undefined;
+}) {
   const { seam, summary } = rec;
   const required = requiredLevelOf(seam);
   const preset = seam.acceptance.preset;
@@ -93,6 +101,13 @@ function SeamRow({ rec }: { readonly rec: SeamRecord }) {
           {seam.welder ? <span>Welder {seam.welder}</span> : null}
           <span>Required {preset ? `${preset} (${required})` : required}</span>
         </span>
+        {decision ? (
+          <span class="seam-decision" data-outcome={decision.outcome}>
+            <span aria-hidden="true">{DECISION_TEXT[decision.outcome].mark} </span>
+            {decisionLine(decision)}
+            <span class="tag tag-new">new</span>
+          </span>
+        ) : null}
         <span class="seam-level">
           {summary ? (
             <LevelBadge
@@ -123,6 +138,7 @@ export function SeamsScreen() {
   const [query, setQuery] = useState('');
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
+  const [unseen, setUnseen] = useState<Map<string, DecisionRecord>>(() => new Map());
 
   const mounted = useRef(true);
   useEffect(
@@ -135,8 +151,14 @@ export function SeamsScreen() {
   const reload = async () => {
     try {
       const store = await getStore();
-      const seams = sortSeams(await store.listSeams());
-      setLoad({ state: 'ready', seams, linked: linkedBySeam(await store.listTagLinks()) });
+      const [listed, decisions, links] = await Promise.all([
+        store.listSeams(),
+        store.unseenDecisions(),
+        store.listTagLinks(),
+      ]);
+      const seams = sortSeams(listed);
+      setUnseen(decisions);
+      setLoad({ state: 'ready', seams, linked: linkedBySeam(links) });
       // npm run bench:app times the cold start to this mark: the list is read from storage and on screen.
       if (!performance.getEntriesByName(FIRST_SCREEN_MARK).length) {
         requestAnimationFrame(() => performance.mark(FIRST_SCREEN_MARK));
@@ -155,6 +177,12 @@ export function SeamsScreen() {
 
   useEffect(() => {
     void reload();
+    // Decisions and assigned seams arrive with a pull: show them when they do.
+    const unsubscribe = onPulled((outcome) => {
+      if (outcome.kind === 'pulled' && (outcome.applied.decisions || outcome.applied.assignments))
+        void reload();
+    });
+    return () => unsubscribe();
   }, []);
 
   const loadDemo = async () => {
@@ -231,7 +259,7 @@ export function SeamsScreen() {
       </p>
       <ul class="seam-list">
         {shown.map((rec) => (
-          <SeamRow key={rec.id} rec={rec} />
+          <SeamRow key={rec.id} rec={rec} decision={unseen.get(rec.id)} />
         ))}
       </ul>
     </section>

@@ -1,6 +1,9 @@
-// The page's one sync client: the device vault, and the outbox sender woken on app start, on the `online` event,
-// from "Send now", and by a gentle check while the page is open (so readings saved in range go soon). Tabs share
-// one sender at a time through Web Locks where the browser has them.
+// The page's one sync client: the device vault, the outbox sender woken on app start, on the `online` event, from
+// "Send now", and by a gentle check while the page is open (so readings saved in range go soon), and the puller,
+// which follows every send pass (decisions and assignments come back the same way). Tabs share one sender at a
+// time through Web Locks where the browser has them. The puller (signature checks of the server's items) loads
+// after the first send pass, outside the first paint.
+import type { PullOutcome, Puller } from '../sync/puller.js';
 import { openDeviceVault, type DeviceVault } from '../sync/device-vault.js';
 import { exclusiveSend, OUTBOX_SYNC_TAG } from '../sync/background-send.js';
 import { OutboxSender, type SenderStatus } from '../sync/sender.js';
@@ -10,12 +13,21 @@ import { getStore } from './store.js';
 export interface SyncClient {
   readonly vault: DeviceVault;
   readonly sender: OutboxSender;
+  /** The puller, loaded on first use. */
+  puller(): Promise<Puller>;
 }
 
 /** How often an idle sender looks for new records while the page is open. */
 const CHECK_EVERY_MS = 30_000;
 
 let client: Promise<SyncClient> | null = null;
+const pullListeners = new Set<(outcome: PullOutcome) => void>();
+
+/** Called after every pull with what it brought (screens refresh on it); returns the unsubscribe. */
+export function onPulled(listener: (outcome: PullOutcome) => void): () => void {
+  pullListeners.add(listener);
+  return () => pullListeners.delete(listener);
+}
 
 interface SyncManagerLike {
   register(tag: string): Promise<void>;
@@ -42,12 +54,28 @@ export function getSync(): Promise<SyncClient> {
   client ??= getStore().then((store) => {
     const vault = openDeviceVault();
     const sender = new OutboxSender({ store, vault, transport: fetchTransport, exclusive: exclusiveSend });
-    return { vault, sender };
+    let loading: Promise<Puller> | null = null;
+    const puller = () =>
+      (loading ??= import('../sync/puller.js').then(({ Puller }) => {
+        const made = new Puller({ store, vault, transport: fetchTransport });
+        made.subscribe((outcome) => {
+          for (const listener of pullListeners) listener(outcome);
+        });
+        return made;
+      }));
+    // After each send pass that reached its end (sent, or nothing to send), pull what the server has.
+    let lastPass: number | null = null;
+    sender.subscribe((status) => {
+      if (status.state === 'sending' || status.lastPassAt === lastPass) return;
+      lastPass = status.lastPassAt;
+      if (status.state === 'idle') void puller().then((p) => p.pullNow());
+    });
+    return { vault, sender, puller };
   });
   return client;
 }
 
-/** Starts sending in the background; called once from main.tsx. Never throws. */
+/** Starts sending (and pulling after it) in the background; called once from main.tsx. Never throws. */
 export function startSync(): void {
   getSync()
     .then(({ sender }) => {

@@ -4,7 +4,9 @@
 // the device must enrol again as a new device: nothing else can prove it is the old one.
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
 import type { CryptoKey } from 'jose';
-import { describeKeyPair, generateDeviceKey, type DeviceKey, type PublicJwk } from '../../protocol/index.js';
+// Protocol modules by name, not the barrel: this is in the first paint, which must not carry what it does not use.
+import { describeKeyPair, generateDeviceKey, type DeviceKey } from '../../protocol/device-key.js';
+import type { PublicJwk } from '../../protocol/jwk.js';
 
 export const DEVICE_DB_NAME = 'beadbook-device';
 

@@ -3,13 +3,9 @@
 // resent byte for byte until every record in it is answered; new records go into new batches. A failed pass
 // (no answer, 5xx, 429) keeps everything queued and tries again after a backoff with jitter; app start, the
 // `online` event and "Send now" only wake it.
-import {
-  isAcknowledged,
-  JOSE_JSON,
-  parseBatchReply,
-  sealBatch,
-  type BatchReply,
-} from '../../protocol/index.js';
+// Protocol modules by name, not the barrel: the sender is in the first paint (see device-vault.ts).
+import { isAcknowledged, parseBatchReply, sealBatch, type BatchReply } from '../../protocol/batch.js';
+import { JOSE_JSON } from '../../protocol/version.js';
 import type { RecordAnswer, SealedBatchRecord, Store } from '../../store/api.js';
 import { backoffDelay, DEFAULT_BACKOFF, type BackoffPolicy } from './backoff.js';
 import type { DeviceVault } from './device-vault.js';

@@ -11,6 +11,7 @@ import { readJson } from '../http/body.js';
 import { HttpError } from '../http/errors.js';
 import { parseInput } from '../http/validate.js';
 import type { Account } from '../storage/types.js';
+import { reviewApiRoutes } from '../review/api-routes.js';
 import { assignSeam, checkSeamSetup, decide, issueEnrolmentCode, putSeam, seamView } from './service.js';
 
 const id = v.pipe(
@@ -45,6 +46,7 @@ const decisionInput = v.strictObject({
   round: v.pipe(v.number(), v.integer(), v.minValue(1), v.maxValue(999)),
   outcome: v.picklist(DECISION_OUTCOMES, `must be one of ${DECISION_OUTCOMES.join(', ')}`),
   comment: v.optional(v.pipe(v.string(), v.maxLength(2000))),
+  basedOn: v.optional(v.pipe(v.number(), v.integer(), v.minValue(0))),
 });
 const renameInput = v.strictObject({ name: deviceName });
 
@@ -132,6 +134,30 @@ export function adminRoutes(deps: AppDeps): Hono<AppEnv> {
     return c.json(await decide(deps, who(c.get('account')), input), 201);
   });
 
+  app.get('/decisions/:id', async (c) => {
+    const decision = await deps.storage.getDecision(c.req.param('id'));
+    if (!decision) throw new HttpError(404, 'unknownDecision', 'no such decision');
+    return c.json(decision);
+  });
+
+  // A decision is an immutable event: it is never changed or removed, only followed by a later decision.
+  app.on(['PUT', 'PATCH', 'DELETE'], '/decisions/:id', async (c) => {
+    deps.log.warn('security', {
+      what: 'decisionChangeRefused',
+      by: who(c.get('account')).username,
+      method: c.req.method,
+      id: c.req.param('id').slice(0, 80),
+    });
+    throw new HttpError(
+      405,
+      'immutable',
+      'decisions cannot be changed or removed: record a new decision on the seam instead',
+      { Allow: 'GET' },
+    );
+  });
+
+  app.route('/review', reviewApiRoutes(deps));
+
   app.get('/records', async (c) => {
     const seamId = c.req.query('seamId');
     const deviceKid = c.req.query('deviceKid');
@@ -157,9 +183,10 @@ export function adminRoutes(deps: AppDeps): Hono<AppEnv> {
     return c.json(await deps.storage.listSecurityEvents(limit));
   });
 
-  /** Waits until every scheduled re-grade has finished (tests use it before reading grades). */
+  /** Waits until every scheduled re-grade and review-facts update has finished (tests use it before reading). */
   app.post('/regrade/wait', async (c) => {
     await deps.regrader.idle();
+    await deps.reviewIndexer.idle();
     return c.body(null, 204);
   });
 

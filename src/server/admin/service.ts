@@ -1,16 +1,11 @@
 // Supervisor operations shared by the JSON API and the web pages.
-import {
-  canonicalJson,
-  formatEnrolmentTicket,
-  newEnrolmentCode,
-  randomUuid,
-  type DECISION_OUTCOMES,
-} from '../../protocol/index.js';
+import { canonicalJson, formatEnrolmentTicket, newEnrolmentCode, randomUuid } from '../../protocol/index.js';
 import { parseSeamFile, SEAM_FILE_FORMAT, type Seam } from '../../domain/index.js';
 import { tokenHash } from '../auth/tokens.js';
 import type { AppDeps } from '../deps.js';
 import { foldSeam } from '../grading/fold.js';
 import { HttpError } from '../http/errors.js';
+import { recordDecision, type DecisionInput } from '../review/decisions.js';
 import type { Account, SeamNamespace } from '../storage/types.js';
 
 export interface IssuedCode {
@@ -119,39 +114,14 @@ export async function assignSeam(
   return { id, seq: change.seq };
 }
 
+/** A review decision (see review/decisions.ts): the id, and the change number devices pull it under. */
 export async function decide(
   deps: AppDeps,
   by: Account,
-  input: {
-    seamId: string;
-    round: number;
-    outcome: (typeof DECISION_OUTCOMES)[number];
-    comment?: string | undefined;
-  },
+  input: DecisionInput,
 ): Promise<{ id: string; seq: number }> {
-  await currentSetup(deps, input.seamId);
-  const id = randomUuid();
-  const now = deps.now().toISOString();
-  const item = {
-    id,
-    seamId: input.seamId,
-    round: input.round,
-    outcome: input.outcome,
-    ...(input.comment ? { comment: input.comment } : {}),
-    decidedBy: by.username,
-    decidedAt: now,
-  };
-  const change = await deps.storage.addChange({
-    kind: 'decision',
-    itemId: id,
-    seamId: input.seamId,
-    deviceKid: null,
-    item: canonicalJson(item),
-    createdAt: now,
-    createdBy: by.id,
-  });
-  deps.log.info('decided', { by: by.username, seamId: input.seamId, outcome: input.outcome });
-  return { id, seq: change.seq };
+  const decision = await recordDecision(deps, by, input);
+  return { id: decision.id, seq: decision.changeSeq };
 }
 
 /** Everything the server holds on a seam: set-up, records as stored, its own grade and the devices' grades. */

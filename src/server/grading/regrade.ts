@@ -150,6 +150,7 @@ export class Regrader {
   readonly #pending = new Set<string>();
   /** Readings the ingest stored just now, for the next re-grade of their seam (see FreshReadings). */
   readonly fresh = new FreshReadings();
+  readonly #graded = new Set<(seamId: string) => void>();
   #running: Promise<void> | null = null;
 
   constructor(
@@ -168,6 +169,11 @@ export class Regrader {
     }
   }
 
+  /** Calls the listener after each scheduled re-grade is saved (the review facts follow the grade). */
+  onGraded(listener: (seamId: string) => void): void {
+    this.#graded.add(listener);
+  }
+
   /** Resolves when every scheduled seam has been graded. */
   async idle(): Promise<void> {
     while (this.#running) await this.#running;
@@ -182,6 +188,7 @@ export class Regrader {
       this.#pending.delete(next.value);
       try {
         await this.regrade(next.value);
+        for (const listener of this.#graded) listener(next.value);
       } catch (error) {
         this.log.error('regradeFailed', { seamId: next.value, error });
       }

@@ -239,6 +239,160 @@ export interface BatchRow {
   readonly receivedAt: string;
 }
 
+/** What the review queue filters and sorts on, derived per seam after each re-grade (see review/facts.ts). */
+export interface ReviewFacts {
+  readonly seamId: string;
+  readonly namespace: SeamNamespace;
+  readonly label: string;
+  readonly tags: readonly string[];
+  readonly organisation: string | null;
+  readonly area: string | null;
+  readonly drawing: string | null;
+  readonly welder: string | null;
+  readonly procedure: string | null;
+  readonly requiredLevel: string | null;
+  readonly edition: string | null;
+  /** The server grade's state (graded, incomplete, noReadings, noSetup, noRounds, invalid). */
+  readonly state: string;
+  readonly levelMet: string | null;
+  /** 3 for B down to 0 for below D (sorts worst first ascending); null when not graded. */
+  readonly levelRank: number | null;
+  readonly meetsRequired: boolean | null;
+  readonly gradedRound: number | null;
+  readonly latestRound: number | null;
+  readonly readingCount: number;
+  /** Values within the instrument resolution of a limit, in the round the grade comes from (else the latest). */
+  readonly borderlineCount: number;
+  /** The seam assessment's fatigue-class flag: 'below' when the measured geometry falls short of the required FAT. */
+  readonly fatFlag: 'meets' | 'below' | 'notAssessable' | null;
+  /** Whether every measured parameter had enough at-pitch positions (null: nothing to judge). */
+  readonly samplingAdequate: boolean | null;
+  readonly unverifiedRows: number;
+  /** The level the newest device grade reported, and whether it differs from the server's. */
+  readonly deviceLevelMet: string | null;
+  readonly gradeMismatch: boolean;
+  /** First and last inspection day by the device clocks (readings, rounds), YYYY-MM-DD. */
+  readonly inspectedFirst: string | null;
+  readonly inspectedLast: string | null;
+  readonly lastReceivedAt: string | null;
+  /** The newest receive sequence number of the seam's records folded in. */
+  readonly basedOn: number;
+  /** The server grade these facts were made with. */
+  readonly gradedAt: string;
+  readonly computedAt: string;
+  readonly inspectors: readonly string[];
+}
+
+export const REVIEW_FLAGS = [
+  'belowRequired',
+  'fatBelow',
+  'samplingShort',
+  'borderline',
+  'unreviewed',
+] as const;
+export type ReviewFlag = (typeof REVIEW_FLAGS)[number];
+
+export const REVIEW_SORTS = [
+  'label',
+  'level',
+  'required',
+  'welder',
+  'procedure',
+  'drawing',
+  'area',
+  'inspected',
+  'received',
+  'borderline',
+  'decision',
+] as const;
+export type ReviewSort = (typeof REVIEW_SORTS)[number];
+
+export interface ReviewQuery {
+  /** Every flag given must hold (below required level, fatigue flag below, …). */
+  readonly flags: readonly ReviewFlag[];
+  readonly welder: string | null;
+  readonly procedure: string | null;
+  readonly drawing: string | null;
+  readonly area: string | null;
+  readonly deviceKid: string | null;
+  readonly inspector: string | null;
+  /** Inspection days (device clock) overlapping from..to, YYYY-MM-DD, both inclusive. */
+  readonly from: string | null;
+  readonly to: string | null;
+  /** Part of the label, seam id or a tag. */
+  readonly text: string | null;
+  readonly sort: ReviewSort;
+  readonly descending: boolean;
+  readonly offset: number;
+  readonly limit: number;
+}
+
+export interface DecisionRow {
+  readonly seq: number;
+  readonly id: string;
+  readonly seamId: string;
+  readonly round: number;
+  readonly outcome: 'accepted' | 'rework' | 'moreReadings';
+  readonly comment: string | null;
+  readonly decidedBy: number;
+  readonly decidedByName: string;
+  readonly decidedAt: string;
+  /** The newest receive sequence number of the seam's records the supervisor saw. */
+  readonly basedOn: number;
+  readonly serverLevelMet: string | null;
+  /** The decision event signed by the server key (flattened JWS JSON, typ beadbook-decision+jws). */
+  readonly jws: string;
+  readonly changeSeq: number;
+}
+
+export type NewDecision = Omit<DecisionRow, 'seq' | 'changeSeq'> & {
+  /** The seam's newest decision the event names as its previous one (null for the first): checked on insert. */
+  readonly previousId: string | null;
+  /** The item devices pull (canonical JSON). */
+  readonly item: string;
+};
+
+export type DecisionOutcomeOfAdd =
+  | { readonly kind: 'added'; readonly decision: DecisionRow; readonly change: ChangeRow }
+  /** Another decision on the seam was recorded meanwhile: sign again naming it as the previous one. */
+  | { readonly kind: 'stale'; readonly latestId: string | null };
+
+export interface ReviewQueueRow extends Omit<ReviewFacts, 'inspectors'> {
+  readonly decision: {
+    readonly id: string;
+    readonly outcome: DecisionRow['outcome'];
+    readonly round: number;
+    readonly decidedAt: string;
+    readonly decidedByName: string;
+  } | null;
+  /** A decision was made on every record the seam holds. */
+  readonly reviewed: boolean;
+}
+
+export interface ReviewQueuePage {
+  readonly rows: readonly ReviewQueueRow[];
+  /** Seams matching every filter. */
+  readonly total: number;
+  /** Seams matching the filters other than the flags, and how many of those carry each flag. */
+  readonly scope: number;
+  readonly counts: Readonly<Record<ReviewFlag, number>>;
+}
+
+export interface Choice {
+  readonly value: string;
+  readonly label: string;
+  readonly count: number;
+}
+
+export interface ReviewChoices {
+  readonly welders: readonly Choice[];
+  readonly procedures: readonly Choice[];
+  readonly drawings: readonly Choice[];
+  readonly areas: readonly Choice[];
+  readonly devices: readonly Choice[];
+  readonly inspectors: readonly Choice[];
+}
+
 export interface Storage {
   readonly dialect: string;
   close(): Promise<void>;
@@ -314,6 +468,28 @@ export interface Storage {
     afterSeq: number,
     limit: number,
   ): Promise<{ changes: ChangeRow[]; through: number; more: boolean }>;
+
+  // Review (decisions, facts for the queue)
+  /** The newest receive sequence number among the seam's records (0 when it has none). */
+  latestRecordSeq(seamId: string): Promise<number>;
+  /** Records the decision and the change devices pull, in one transaction, if previousId is still the newest. */
+  addDecision(decision: NewDecision): Promise<DecisionOutcomeOfAdd>;
+  getDecision(id: string): Promise<DecisionRow | undefined>;
+  /** The seam's decisions, oldest first. */
+  listDecisions(seamId: string): Promise<DecisionRow[]>;
+  /** The seam's changes (assignments and decisions) in order. */
+  listChangesOfSeam(seamId: string): Promise<ChangeRow[]>;
+  /** The batches that brought records of the seam, in the order received, each as getBatch gives it. */
+  batchesOfSeam(seamId: string): Promise<BatchRow[]>;
+  /** Keeps the facts unless newer ones are held (by basedOn, then gradedAt). */
+  saveReviewFacts(facts: ReviewFacts): Promise<void>;
+  /** Seams whose server grade is newer than their review facts, or that have none. */
+  staleReviewFacts(): Promise<string[]>;
+  getReviewFacts(seamId: string): Promise<ReviewFacts | undefined>;
+  reviewQueue(query: ReviewQuery): Promise<ReviewQueuePage>;
+  /** Seam ids matching the query's filters, in its order, without paging (exports, reports of a selection). */
+  reviewSelection(query: Omit<ReviewQuery, 'offset' | 'limit'>, max: number): Promise<string[]>;
+  reviewChoices(): Promise<ReviewChoices>;
 
   /** Every row of the record tables in a fixed order, for a canonical dump (tests and audits). */
   dumpRecordTables(): Promise<Record<string, unknown[]>>;

@@ -1,11 +1,16 @@
-// The supervisor's pages: sign-in, password, Devices (enrolment code, rename, revoke, last contact, queue) and a
-// read-only Seams list with the server's grade beside the device's. Plain HTML forms; no script.
+// The supervisor's pages: the shared layout, sign-in, password and Devices (enrolment code, rename, revoke, last
+// contact, queue). The review and Seams pages are in review/ and seams-page.ts. Plain HTML forms; no inline script.
 import type { Device } from '../storage/types.js';
 import { html, type Html } from './html.js';
 import { qrSvg } from './qr.js';
 import type { IssuedCode } from '../admin/service.js';
 
-function layout(title: string, body: Html, signedIn: string | null): string {
+export function layout(
+  title: string,
+  body: Html,
+  signedIn: string | null,
+  options: { readonly bodyClass?: string; readonly script?: string } = {},
+): string {
   return `<!doctype html>${
     html`<html lang="en">
       <head>
@@ -13,14 +18,16 @@ function layout(title: string, body: Html, signedIn: string | null): string {
         <meta name="viewport" content="width=device-width, initial-scale=1" />
         <title>${title} · Beadbook supervisor</title>
         <link rel="stylesheet" href="/supervisor/style.css" />
+        ${options.script ? html`<script type="module" src="${options.script}"></script>` : ''}
       </head>
-      <body>
-        <header>
+      <body class="${options.bodyClass ?? ''}">
+        <header class="site">
           <strong>Beadbook supervisor</strong>
           ${
             signedIn === null
               ? ''
-              : html`<a href="/supervisor/devices">Devices</a> <a href="/supervisor/seams">Seams</a>
+              : html`<a href="/supervisor/review">Review</a> <a href="/supervisor/seams">Seams</a>
+                  <a href="/supervisor/devices">Devices</a>
                   <form method="post" action="/supervisor/logout">
                     <span>${signedIn}</span> <button type="submit">Sign out</button>
                   </form>`
@@ -71,7 +78,7 @@ export function passwordPage(user: string, mustChange: boolean, error: string | 
   );
 }
 
-const when = (iso: string | null): string =>
+export const when = (iso: string | null): string =>
   iso === null ? 'never' : iso.replace('T', ' ').replace(/\.\d+Z$/, ' UTC');
 
 function deviceRow(d: Device): Html {
@@ -161,60 +168,6 @@ export function devicesPage(
               ? devices.map(deviceRow)
               : html`<tr>
                   <td colspan="5">No device is enrolled yet.</td>
-                </tr>`
-          }
-        </tbody>
-      </table>`,
-    user,
-  );
-}
-
-export interface SeamLine {
-  readonly id: string;
-  readonly label: string | null;
-  readonly namespace: string;
-  readonly records: number;
-  readonly serverGrade: string;
-  readonly deviceGrades: string;
-}
-
-export function seamsPage(user: string, seams: readonly SeamLine[]): string {
-  return layout(
-    'Seams',
-    html`<h1>Seams</h1>
-      <p>
-        The server grades every seam again from the records it holds; the device's own grade is shown beside
-        it.
-      </p>
-      <table>
-        <thead>
-          <tr>
-            <th>Seam</th>
-            <th>Records</th>
-            <th>Server's grade</th>
-            <th>Devices' grades</th>
-          </tr>
-        </thead>
-        <tbody>
-          ${
-            seams.length
-              ? seams.map(
-                  (s) =>
-                    html`<tr>
-                      <td>
-                        ${s.label ?? s.id}
-                        ${s.namespace === 'demo' ? html`<span class="badge demo">demo</span>` : ''}<br /><span
-                          class="kid"
-                          >${s.id}</span
-                        >
-                      </td>
-                      <td>${s.records}</td>
-                      <td>${s.serverGrade}</td>
-                      <td>${s.deviceGrades}</td>
-                    </tr>`,
-                )
-              : html`<tr>
-                  <td colspan="4">No seam yet.</td>
                 </tr>`
           }
         </tbody>

@@ -9,7 +9,13 @@ import { readForm } from '../http/body.js';
 import { HttpError } from '../http/errors.js';
 import { rateLimit } from '../http/rate-limit.js';
 import type { Account } from '../storage/types.js';
-import { devicesPage, loginPage, passwordPage, seamsPage, type SeamLine } from './pages.js';
+import { devicesPage, loginPage, passwordPage } from './pages.js';
+import { assignSeam } from '../admin/service.js';
+import { parseReviewQuery } from '../review/query.js';
+import { guessMapping, parseSeamList, rowValues, SEAM_FIELDS, type SeamField } from '../seams/seam-fields.js';
+import { checkRows, createSeams, type RowProblem } from '../seams/service.js';
+import { mappingPage, seamsPage } from './seams-page.js';
+import { reviewWebRoutes } from './review/routes.js';
 import { SUPERVISOR_CSS } from './style.js';
 
 const page = (c: Context, body: string, status: 200 | 400 | 401 | 403 = 200) => {
@@ -30,7 +36,7 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     return c.body(SUPERVISOR_CSS);
   });
 
-  app.get('/', (c) => c.redirect('/supervisor/devices', 303));
+  app.get('/', (c) => c.redirect('/supervisor/review', 303));
 
   app.get('/login', (c) => page(c, loginPage(null)));
 
@@ -46,7 +52,7 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     }
     await startSession(deps, c, account);
     deps.log.info('signedIn', { account: account.username });
-    return c.redirect(account.mustChangePassword ? '/supervisor/password' : '/supervisor/devices', 303);
+    return c.redirect(account.mustChangePassword ? '/supervisor/password' : '/supervisor/review', 303);
   });
 
   app.post('/logout', async (c) => {
@@ -117,39 +123,130 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     return page(c, devicesPage(me(c).username, await deps.storage.listDevices(), null, notice));
   });
 
-  app.get('/seams', supervisor, async (c) => {
-    const lines: SeamLine[] = [];
-    for (const id of await deps.storage.listSeamIds()) {
-      const [row, material, grade, deviceGrades] = await Promise.all([
-        deps.storage.getSeam(id),
-        deps.storage.seamMaterial(id),
-        deps.storage.getServerGrade(id),
-        deps.storage.listDeviceGrades(id),
-      ]);
-      const label = row ? ((JSON.parse(row.setup) as { label?: string }).label ?? null) : null;
-      lines.push({
-        id,
-        label,
-        namespace: row?.namespace ?? 'live',
-        records: material.records.length,
-        serverGrade: grade ? gradeText(grade.state, grade.levelMet) : 'not graded yet',
-        deviceGrades: deviceGrades.length
-          ? deviceGrades
-              .map((g) => {
-                const d = JSON.parse(g.grade) as { state: string; levelMet: string | null };
-                return gradeText(d.state, d.levelMet);
-              })
-              .join('; ')
-          : 'none reported',
-      });
+  app.route('/review', reviewWebRoutes(deps));
+
+  const seamsView = async (c: Context<AppEnv>, extra: { notice?: string; problems?: RowProblem[] } = {}) => {
+    const [listed, devices] = await Promise.all([
+      deps.storage.reviewQueue({ ...parseReviewQuery(new URLSearchParams('sort=label')), limit: 500 }),
+      deps.storage.listDevices(),
+    ]);
+    return seamsPage({ user: me(c).username, seams: listed.rows, total: listed.total, devices, ...extra });
+  };
+  const deviceOf = (form: URLSearchParams) => {
+    const kid = form.get('device') ?? '';
+    return kid
+      ? { deviceKid: kid, ...(form.get('note') ? { note: (form.get('note') ?? '').slice(0, 500) } : {}) }
+      : null;
+  };
+  // A seam list may be long: its form takes more than the usual cap.
+  const listBytes = 4 * 1024 * 1024;
+
+  app.get('/seams', supervisor, async (c) =>
+    page(c, await seamsView(c, { notice: c.req.query('notice') ?? '' })),
+  );
+
+  app.post('/seams', supervisor, async (c) => {
+    const form = await readForm(c, max);
+    const values = Object.fromEntries(SEAM_FIELDS.map((f) => [f.key, form.get(f.key) ?? '']));
+    const { seams, problems } = await checkRows(deps, [values], 0);
+    if (problems.length) return page(c, await seamsView(c, { problems }), 400);
+    await createSeams(deps, me(c), seams, deviceOf(form));
+    // The Seams page lists seams from their review facts: let the new ones show at once.
+    await deps.regrader.idle();
+    await deps.reviewIndexer.idle();
+    return c.redirect(
+      `/supervisor/seams?notice=${encodeURIComponent(`Seam “${seams[0]?.label ?? ''}” set up.`)}`,
+      303,
+    );
+  });
+
+  app.post('/seams/import/map', supervisor, async (c) => {
+    const form = await readForm(c, listBytes);
+    const csv = form.get('csv') ?? '';
+    const list = parseSeamList(csv);
+    const devices = await deps.storage.listDevices();
+    const problems = list.problems.map((message) => ({ row: 0, message }));
+    if (!list.headers.length || !list.rows.length)
+      problems.push({ row: 0, message: 'the list needs a header row and at least one seam row' });
+    return page(
+      c,
+      mappingPage({
+        user: me(c).username,
+        csv,
+        headers: list.headers,
+        rows: list.rows,
+        guess: guessMapping(list.headers),
+        devices,
+        problems,
+      }),
+      problems.length ? 400 : 200,
+    );
+  });
+
+  app.post('/seams/import', supervisor, async (c) => {
+    const form = await readForm(c, listBytes);
+    const csv = form.get('csv') ?? '';
+    const list = parseSeamList(csv);
+    const mapping: Partial<Record<SeamField, string>> = {};
+    for (const f of SEAM_FIELDS) {
+      const column = form.get(`map.${f.key}`) ?? '';
+      if (column && list.headers.includes(column)) mapping[f.key] = column;
     }
-    return page(c, seamsPage(me(c).username, lines));
+    const { seams, problems } = await checkRows(
+      deps,
+      list.rows.map((r) => rowValues(r, mapping)),
+    );
+    if (problems.length || !seams.length) {
+      const devices = await deps.storage.listDevices();
+      const all = [
+        ...problems,
+        ...(seams.length || problems.length ? [] : [{ row: 0, message: 'the list holds no seam' }]),
+      ];
+      return page(
+        c,
+        mappingPage({
+          user: me(c).username,
+          csv,
+          headers: list.headers,
+          rows: list.rows,
+          guess: mapping,
+          devices,
+          problems: all,
+        }),
+        400,
+      );
+    }
+    const assign = deviceOf(form);
+    await createSeams(deps, me(c), seams, assign);
+    // The Seams page lists seams from their review facts: let the new ones show at once.
+    await deps.regrader.idle();
+    await deps.reviewIndexer.idle();
+    const notice = `${seams.length} seam${seams.length === 1 ? '' : 's'} imported${assign ? ' and assigned' : ''}.`;
+    return c.redirect(`/supervisor/seams?notice=${encodeURIComponent(notice)}`, 303);
+  });
+
+  app.post('/seams/assign', supervisor, async (c) => {
+    const form = await readForm(c, listBytes);
+    const ids = form.getAll('seam');
+    const assign = deviceOf(form);
+    if (!assign || !ids.length)
+      return page(
+        c,
+        await seamsView(c, {
+          problems: [{ row: 0, message: 'Tick at least one seam and choose a tablet.' }],
+        }),
+        400,
+      );
+    try {
+      for (const seamId of ids) await assignSeam(deps, me(c), { seamId, ...assign });
+    } catch (error) {
+      if (!(error instanceof HttpError)) throw error;
+      return page(c, await seamsView(c, { problems: [{ row: 0, message: error.message }] }), 400);
+    }
+    const name = (await deps.storage.getDevice(assign.deviceKid))?.name ?? assign.deviceKid;
+    const notice = `${ids.length} seam${ids.length === 1 ? '' : 's'} assigned to ${name}; the tablet receives ${ids.length === 1 ? 'it' : 'them'} on its next sync.`;
+    return c.redirect(`/supervisor/seams?notice=${encodeURIComponent(notice)}`, 303);
   });
 
   return app;
-}
-
-function gradeText(state: string, levelMet: string | null): string {
-  const level = levelMet === null ? '' : levelMet === 'belowD' ? ' — below D' : ` — level ${levelMet} met`;
-  return `${state}${level}`;
 }

@@ -173,4 +173,81 @@ ALTER TABLE batches ADD COLUMN jws_payload BLOB;
 ALTER TABLE batches ADD COLUMN jws_payload_at INTEGER;
 `,
   },
+  {
+    version: 3,
+    name: 'review: decisions as signed immutable events, review facts per seam',
+    sql: `
+-- A supervisor's decision on a seam, signed by the server key when made (jws: the flattened JWS of the decision
+-- event, typ beadbook-decision+jws). based_on is the newest receive_seq of the seam's records the supervisor
+-- saw: records received after it make the seam "not yet reviewed" again. Rows are never changed or removed.
+CREATE TABLE decisions (
+  seq INTEGER PRIMARY KEY AUTOINCREMENT,
+  id TEXT NOT NULL UNIQUE,
+  seam_id TEXT NOT NULL,
+  round INTEGER NOT NULL,
+  outcome TEXT NOT NULL CHECK (outcome IN ('accepted', 'rework', 'moreReadings')),
+  comment TEXT,
+  decided_by INTEGER NOT NULL REFERENCES accounts (id),
+  decided_by_name TEXT NOT NULL,
+  decided_at TEXT NOT NULL,
+  based_on INTEGER NOT NULL,
+  server_level_met TEXT,
+  jws TEXT NOT NULL,
+  change_seq INTEGER NOT NULL UNIQUE REFERENCES changes (seq)
+);
+CREATE INDEX decisions_by_seam ON decisions (seam_id, seq);
+
+CREATE TRIGGER decisions_are_immutable BEFORE UPDATE ON decisions
+BEGIN SELECT RAISE(ABORT, 'decisions are immutable: record a new decision instead'); END;
+CREATE TRIGGER decisions_are_kept BEFORE DELETE ON decisions
+BEGIN SELECT RAISE(ABORT, 'decisions are immutable: they are never removed'); END;
+-- What devices pull (assignments, decisions) is history too: a device may hold it already.
+CREATE TRIGGER changes_are_immutable BEFORE UPDATE ON changes
+BEGIN SELECT RAISE(ABORT, 'changes sent to devices are immutable'); END;
+CREATE TRIGGER changes_are_kept BEFORE DELETE ON changes
+BEGIN SELECT RAISE(ABORT, 'changes sent to devices are never removed'); END;
+
+-- What the review queue filters and sorts on, one row per seam, derived (recomputed after each re-grade) from
+-- the records, the server grade and the seam assessment. Never the source of truth.
+CREATE TABLE review_facts (
+  seam_id TEXT PRIMARY KEY,
+  namespace TEXT NOT NULL,
+  label TEXT NOT NULL,
+  tags TEXT NOT NULL,
+  organisation TEXT,
+  area TEXT,
+  drawing TEXT,
+  welder TEXT,
+  procedure TEXT,
+  required_level TEXT,
+  edition TEXT,
+  state TEXT NOT NULL,
+  level_met TEXT,
+  level_rank INTEGER,
+  meets_required INTEGER,
+  graded_round INTEGER,
+  latest_round INTEGER,
+  reading_count INTEGER NOT NULL,
+  borderline_count INTEGER NOT NULL,
+  fat_flag TEXT,
+  sampling_adequate INTEGER,
+  unverified_rows INTEGER NOT NULL,
+  device_level_met TEXT,
+  grade_mismatch INTEGER NOT NULL,
+  inspected_first TEXT,
+  inspected_last TEXT,
+  last_received_at TEXT,
+  based_on INTEGER NOT NULL,
+  graded_at TEXT NOT NULL,
+  computed_at TEXT NOT NULL
+);
+
+CREATE TABLE review_inspectors (
+  seam_id TEXT NOT NULL,
+  name TEXT NOT NULL,
+  PRIMARY KEY (seam_id, name)
+) WITHOUT ROWID;
+CREATE INDEX review_inspectors_by_name ON review_inspectors (name, seam_id);
+`,
+  },
 ];

@@ -9,6 +9,8 @@ import type {
   BatchPlan,
   BatchRow,
   ChangeRow,
+  DecisionOutcomeOfAdd,
+  DecisionRow,
   Device,
   DeviceGradeRow,
   EnrolAttempt,
@@ -18,8 +20,13 @@ import type {
   GradeRecord,
   NewAccount,
   NewChange,
+  NewDecision,
   ParkedRecord,
   PlannedRecord,
+  ReviewChoices,
+  ReviewFacts,
+  ReviewQuery,
+  ReviewQueuePage,
   SeamMaterial,
   SeamRow,
   SecurityEvent,
@@ -30,6 +37,7 @@ import type {
 } from '../types.js';
 import { joinJws, splitJws } from './jws-columns.js';
 import { openDatabase, type Db, type OpenOptions } from './open.js';
+import { ReviewStatements } from './review-store.js';
 
 interface AccountRow {
   id: number;
@@ -140,12 +148,14 @@ export class SqliteStorage implements Storage {
   readonly dialect = 'sqlite';
   readonly #db: Db;
   readonly #s;
+  readonly #review: ReviewStatements;
   /** The connection's synchronous setting (FULL unless opened otherwise). */
   readonly #synchronous: 'FULL' | 'NORMAL';
 
   constructor(db: Db) {
     this.#db = db;
     this.#synchronous = db.pragma('synchronous', { simple: true }) === 1 ? 'NORMAL' : 'FULL';
+    this.#review = new ReviewStatements(db);
     const p = (sql: string) => db.prepare(sql);
     this.#s = {
       countAccounts: p('SELECT count(*) AS n FROM accounts'),
@@ -827,6 +837,59 @@ export class SqliteStorage implements Storage {
       const through = more ? (changes[changes.length - 1] as ChangeRow).seq : Math.max(afterSeq, last);
       return { changes, through, more };
     })();
+  }
+
+  async latestRecordSeq(seamId: string): Promise<number> {
+    return this.#review.latestRecordSeq(seamId);
+  }
+
+  async addDecision(decision: NewDecision): Promise<DecisionOutcomeOfAdd> {
+    return this.#review.addDecision(decision);
+  }
+
+  async getDecision(id: string): Promise<DecisionRow | undefined> {
+    return this.#review.getDecision(id);
+  }
+
+  async listDecisions(seamId: string): Promise<DecisionRow[]> {
+    return this.#review.listDecisions(seamId);
+  }
+
+  async listChangesOfSeam(seamId: string): Promise<ChangeRow[]> {
+    return this.#review.listChangesOfSeam(seamId);
+  }
+
+  async batchesOfSeam(seamId: string): Promise<BatchRow[]> {
+    const batches: BatchRow[] = [];
+    for (const id of this.#review.batchIdsOfSeam(seamId)) {
+      const batch = await this.getBatch(id);
+      if (batch) batches.push(batch);
+    }
+    return batches;
+  }
+
+  async saveReviewFacts(facts: ReviewFacts): Promise<void> {
+    this.#review.saveFacts(facts);
+  }
+
+  async staleReviewFacts(): Promise<string[]> {
+    return this.#review.staleFacts();
+  }
+
+  async getReviewFacts(seamId: string): Promise<ReviewFacts | undefined> {
+    return this.#review.getFacts(seamId);
+  }
+
+  async reviewQueue(query: ReviewQuery): Promise<ReviewQueuePage> {
+    return this.#review.queue(query);
+  }
+
+  async reviewSelection(query: Omit<ReviewQuery, 'offset' | 'limit'>, max: number): Promise<string[]> {
+    return this.#review.selection(query, max);
+  }
+
+  async reviewChoices(): Promise<ReviewChoices> {
+    return this.#review.choices();
   }
 
   async dumpRecordTables(): Promise<Record<string, unknown[]>> {

@@ -9,7 +9,7 @@ import { testConfig } from '../../../../src/server/config.js';
 import { memoryLogger } from '../../../../src/server/log.js';
 import { SqliteStorage } from '../../../../src/server/storage/sqlite/sqlite-storage.js';
 
-const SUPERVISOR = { username: 'supervisor', password: 'e2e supervisor password' };
+export const SUPERVISOR = { username: 'supervisor', password: 'e2e supervisor password' };
 
 export interface YardServer {
   readonly origin: string;
@@ -66,6 +66,7 @@ export async function startYardServer(appDir: string): Promise<YardServer> {
       (server as HttpServer).closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await deps.regrader.idle();
+      await deps.reviewIndexer.idle();
       await storage.close();
     },
   };

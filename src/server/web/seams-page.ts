@@ -1,0 +1,179 @@
+// The Seams page: set up a seam, import a seam list (CSV with a column mapping), and assign seams to tablets, which
+// receive them, signed by the server key, on their next sync.
+import type { Device, ReviewQueueRow } from '../storage/types.js';
+import { SEAM_FIELDS, type SeamField } from '../seams/seam-fields.js';
+import type { RowProblem } from '../seams/service.js';
+import { html, type Html } from './html.js';
+import { layout } from './pages.js';
+import { demoBadge, level } from './review/parts.js';
+
+const deviceSelect = (devices: readonly Device[], name = 'device', optional = true): Html =>
+  html`<select name="${name}" ${optional ? '' : html`required`}>
+    ${optional ? html`<option value="">no tablet yet</option>` : html`<option value="">choose a tablet</option>`}
+    ${devices
+      .filter((d) => d.revokedAt === null)
+      .map((d) => html`<option value="${d.kid}">${d.name}</option>`)}
+  </select>`;
+
+export const problemList = (problems: readonly RowProblem[]): Html =>
+  problems.length
+    ? html`<div class="error" role="alert">
+        <p>Nothing was kept. Put these right and try again:</p>
+        <ul>
+          ${problems.map((p) => html`<li>${p.row ? `Row ${p.row}: ` : ''}${p.message}</li>`)}
+        </ul>
+      </div>`
+    : html``;
+
+export function seamsPage(input: {
+  readonly user: string;
+  readonly seams: readonly ReviewQueueRow[];
+  readonly total: number;
+  readonly devices: readonly Device[];
+  readonly notice?: string | null;
+  readonly problems?: readonly RowProblem[];
+}): string {
+  return layout(
+    'Seams',
+    html`<h1>Seams</h1>
+      ${input.notice ? html`<p class="notice" role="status">${input.notice}</p>` : ''}
+      ${problemList(input.problems ?? [])}
+      <section class="panel" aria-labelledby="assign-title">
+        <h2 id="assign-title">Assign seams to a tablet</h2>
+        <form method="post" action="/supervisor/seams/assign">
+          <table>
+            <thead>
+              <tr>
+                <th scope="col">Assign</th>
+                <th scope="col">Seam</th>
+                <th scope="col">Drawing</th>
+                <th scope="col">Server grade</th>
+              </tr>
+            </thead>
+            <tbody>
+              ${
+                input.seams.length
+                  ? input.seams.map(
+                      (s) =>
+                        html`<tr>
+                          <td>
+                            <input
+                              type="checkbox"
+                              name="seam"
+                              value="${s.seamId}"
+                              aria-label="Assign ${s.label}"
+                            />
+                          </td>
+                          <td>
+                            <a href="/supervisor/review/seams/${encodeURIComponent(s.seamId)}">${s.label}</a
+                            >${demoBadge(s.namespace)}<br /><span class="kid">${s.seamId}</span>
+                          </td>
+                          <td>${s.drawing ?? '—'}</td>
+                          <td>${s.levelMet ? level(s.levelMet) : s.state}</td>
+                        </tr>`,
+                    )
+                  : html`<tr>
+                      <td colspan="4">No seam yet.</td>
+                    </tr>`
+              }
+            </tbody>
+          </table>
+          ${
+            input.total > input.seams.length
+              ? html`<p class="muted">The first ${input.seams.length} of ${input.total} seams by label.</p>`
+              : ''
+          }
+          <label>Tablet ${deviceSelect(input.devices, 'device', false)}</label>
+          <label>Note for the inspector <input type="text" name="note" maxlength="500" /></label>
+          <button type="submit">Assign</button>
+        </form>
+      </section>
+      <section class="panel" aria-labelledby="new-title">
+        <h2 id="new-title">Set up a seam</h2>
+        <form method="post" action="/supervisor/seams" class="seam-form">
+          <div class="columns">
+            ${SEAM_FIELDS.map(
+              (f) =>
+                html`<label
+                  >${f.label}${f.required ? ' *' : ''}
+                  <input type="text" name="${f.key}" ${f.required ? html`required` : ''} maxlength="200"
+                /></label>`,
+            )}
+          </div>
+          <label>Assign to ${deviceSelect(input.devices)}</label>
+          <button type="submit">Set up the seam</button>
+        </form>
+      </section>
+      <section class="panel" aria-labelledby="import-title">
+        <h2 id="import-title">Import a seam list (CSV)</h2>
+        <p>
+          Paste the list with a header row; the next step maps its columns to the seam's fields. Every row is
+          checked, and nothing is kept unless every row is sound.
+        </p>
+        <form method="post" action="/supervisor/seams/import/map">
+          <label>Seam list (CSV) <textarea name="csv" rows="8" required></textarea></label>
+          <button type="submit">Next: map the columns</button>
+        </form>
+      </section>`,
+    input.user,
+    { bodyClass: 'wide' },
+  );
+}
+
+export function mappingPage(input: {
+  readonly user: string;
+  readonly csv: string;
+  readonly headers: readonly string[];
+  readonly rows: readonly Record<string, string>[];
+  readonly guess: Partial<Record<SeamField, string>>;
+  readonly devices: readonly Device[];
+  readonly problems?: readonly RowProblem[];
+}): string {
+  const preview = input.rows.slice(0, 5);
+  return layout(
+    'Map the seam list',
+    html`<p><a href="/supervisor/seams">← Seams</a></p>
+      <h1>Map the seam list's columns</h1>
+      ${problemList(input.problems ?? [])}
+      <p>${input.rows.length} row${input.rows.length === 1 ? '' : 's'} read. The first rows:</p>
+      <table>
+        <thead>
+          <tr>
+            ${input.headers.map((h) => html`<th scope="col">${h}</th>`)}
+          </tr>
+        </thead>
+        <tbody>
+          ${preview.map(
+            (r) =>
+              html`<tr>
+                ${input.headers.map((h) => html`<td>${r[h] ?? ''}</td>`)}
+              </tr>`,
+          )}
+        </tbody>
+      </table>
+      <form method="post" action="/supervisor/seams/import">
+        <textarea name="csv" hidden>${input.csv}</textarea>
+        <div class="columns">
+          ${SEAM_FIELDS.map(
+            (f) =>
+              html`<label
+                >${f.label}${f.required ? ' *' : ''}
+                <select name="map.${f.key}">
+                  <option value="">${f.required ? 'choose a column' : 'not in the list'}</option>
+                  ${input.headers.map(
+                    (h) =>
+                      html`<option value="${h}" ${input.guess[f.key] === h ? html`selected` : ''}>
+                        ${h}
+                      </option>`,
+                  )}
+                </select></label
+              >`,
+          )}
+        </div>
+        <label>Assign every imported seam to ${deviceSelect(input.devices)}</label>
+        <button type="submit">Import the seams</button>
+      </form>`,
+    input.user,
+    { bodyClass: 'wide' },
+  );
+}
