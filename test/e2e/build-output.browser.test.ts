@@ -23,6 +23,14 @@ describe('the service worker precache', () => {
     expect(precachedUrls(current.dir).sort()).toEqual(emitted.sort());
   });
 
+  it('builds sw.js as a classic worker script: no module syntax, which would stop it from starting at all', () => {
+    // A service worker registered without {type: 'module'} is a classic script (HTML Living Standard, service
+    // workers): import.meta, import() and top-level import/export fail its evaluation, and the app loses offline.
+    const sw = readFileSync(join(current.dir, 'sw.js'), 'utf8');
+    expect(sw).not.toMatch(/import\.meta|\bimport\(|^\s*(import|export)\s/m);
+    expect(sw).toContain('beadbook-outbox');
+  });
+
   it('includes the lazily loaded chunks, the shell and the installability files', () => {
     const urls = precachedUrls(current.dir);
     const lazy = lazyChunks(readBuildManifest(current.dir)).map((chunk) => chunk.file);

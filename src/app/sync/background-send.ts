@@ -1,7 +1,7 @@
 // One sending pass with no page open: what the service worker runs when the browser fires a Background Sync
 // event (Chromium fires it once the device is back online, even after every tab was closed). The pass is the
 // page's own sender, under the same Web Lock, so a page that opens meanwhile never sends the same batch at once.
-import { openStore } from '../../store/index.js';
+import { openSendStore } from '../../store/open-send-store.js';
 import { openDeviceVault } from './device-vault.js';
 import { OutboxSender, type SenderStatus } from './sender.js';
 import { fetchTransport } from './transport.js';
@@ -26,7 +26,7 @@ export function exclusiveSend<T>(pass: () => Promise<T>): Promise<T> {
  * worth retrying (no network, 5xx), so the browser schedules the sync again with its own backoff.
  */
 export async function sendOnceInBackground(): Promise<{ sent: boolean; status: SenderStatus }> {
-  const store = await openStore({
+  const store = await openSendStore({
     // A page is upgrading the database: this short-lived connection simply closes.
     onBlocking: () => undefined,
   });
