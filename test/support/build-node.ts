@@ -39,6 +39,7 @@ export async function buildNode(): Promise<void> {
   await acquire();
   try {
     execFileSync('npx', ['tsc', '-b', 'tsconfig.node.json'], { cwd: ROOT, stdio: 'pipe', encoding: 'utf8' });
+    execFileSync('node', ['scripts/bin-mode.mjs'], { cwd: ROOT, stdio: 'pipe', encoding: 'utf8' });
   } catch (e) {
     const out = e as { stdout?: string; stderr?: string; message: string };
     throw new Error(
