@@ -3,7 +3,7 @@
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 
-const DIST = join(import.meta.dirname, '..', '..', 'bench');
+const DIST = import.meta.dirname;
 const BENCHES = [
   'grade.bench.js',
   'assess.bench.js',
