@@ -28,7 +28,7 @@ import { summaryFromGrade } from '../components/summary.js';
 import { hrefOf } from '../router.js';
 import { gradeInWorker } from '../services/grading.js';
 import { getStore } from '../services/store.js';
-import { onPulled } from '../services/sync.js';
+import { onPulled } from '../services/pull-events.js';
 
 type Graded =
   { ok: true; grade: SeamGrade; assessment: SeamAssessment } | { ok: false; problems: Problem[] } | null;

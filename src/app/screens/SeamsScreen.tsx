@@ -8,7 +8,7 @@ import { needsRegrade, regradeOrder, sameSummary, summaryFromGrade } from '../co
 import { hrefOf } from '../router.js';
 import { entryCheckWorker } from '../services/entry-check.js';
 import { getStore } from '../services/store.js';
-import { onPulled } from '../services/sync.js';
+import { onPulled } from '../services/pull-events.js';
 
 type Load =
   | { state: 'loading' }

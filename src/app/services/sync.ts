@@ -3,11 +3,12 @@
 // which follows every send pass (decisions and assignments come back the same way). Tabs share one sender at a
 // time through Web Locks where the browser has them. The puller (signature checks of the server's items) loads
 // after the first send pass, outside the first paint.
-import type { PullOutcome, Puller } from '../sync/puller.js';
+import type { Puller } from '../sync/puller.js';
 import { openDeviceVault, type DeviceVault } from '../sync/device-vault.js';
 import { exclusiveSend, OUTBOX_SYNC_TAG } from '../sync/background-send.js';
 import { OutboxSender, type SenderStatus } from '../sync/sender.js';
 import { fetchTransport } from '../sync/transport.js';
+import { announcePull } from './pull-events.js';
 import { getStore } from './store.js';
 
 export interface SyncClient {
@@ -21,13 +22,6 @@ export interface SyncClient {
 const CHECK_EVERY_MS = 30_000;
 
 let client: Promise<SyncClient> | null = null;
-const pullListeners = new Set<(outcome: PullOutcome) => void>();
-
-/** Called after every pull with what it brought (screens refresh on it); returns the unsubscribe. */
-export function onPulled(listener: (outcome: PullOutcome) => void): () => void {
-  pullListeners.add(listener);
-  return () => pullListeners.delete(listener);
-}
 
 interface SyncManagerLike {
   register(tag: string): Promise<void>;
@@ -58,9 +52,7 @@ export function getSync(): Promise<SyncClient> {
     const puller = () =>
       (loading ??= import('../sync/puller.js').then(({ Puller }) => {
         const made = new Puller({ store, vault, transport: fetchTransport });
-        made.subscribe((outcome) => {
-          for (const listener of pullListeners) listener(outcome);
-        });
+        made.subscribe(announcePull);
         return made;
       }));
     // After each send pass that reached its end (sent, or nothing to send), pull what the server has.
