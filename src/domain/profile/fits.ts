@@ -136,6 +136,35 @@ export interface Circle {
   readonly n: number;
 }
 
+/** Mean of the points from..to (exclusive): both circle fits work about it. */
+function centroid(x: ArrayLike<number>, z: ArrayLike<number>, from: number, to: number): [number, number] {
+  let mx = 0;
+  let mz = 0;
+  for (let i = from; i < to; i++) {
+    mx += x[i] as number;
+    mz += z[i] as number;
+  }
+  return [mx / (to - from), mz / (to - from)];
+}
+
+/** Root-mean-square radial distance of the points from a circle: the fit's residual. */
+function circleRms(
+  x: ArrayLike<number>,
+  z: ArrayLike<number>,
+  from: number,
+  to: number,
+  cx: number,
+  cz: number,
+  r: number,
+): number {
+  let s = 0;
+  for (let i = from; i < to; i++) {
+    const d = Math.hypot((x[i] as number) - cx, (z[i] as number) - cz) - r;
+    s += d * d;
+  }
+  return Math.sqrt(s / (to - from));
+}
+
 /**
  * Pratt's algebraic circle fit (Pratt 1987, "Direct least-squares fitting of algebraic surfaces"), solved by
  * Newton's method on its characteristic polynomial as in Chernov's "Circular and linear regression" (2010), §5.
@@ -150,14 +179,7 @@ export function fitCirclePratt(
 ): Circle | null {
   const n = to - from;
   if (n < 3) return null;
-  let mx = 0,
-    mz = 0;
-  for (let i = from; i < to; i++) {
-    mx += x[i] as number;
-    mz += z[i] as number;
-  }
-  mx /= n;
-  mz /= n;
+  const [mx, mz] = centroid(x, z, from, to);
   let Mxx = 0,
     Myy = 0,
     Mxy = 0,
@@ -219,14 +241,7 @@ export function fitCirclePratt(
   if (!Number.isFinite(r)) return null;
   const cx = cx0 + mx;
   const cz = cz0 + mz;
-  let s = 0;
-  if (withResidual) {
-    for (let i = from; i < to; i++) {
-      const d = Math.hypot((x[i] as number) - cx, (z[i] as number) - cz) - r;
-      s += d * d;
-    }
-  }
-  return { cx, cz, r, rms: withResidual ? Math.sqrt(s / n) : NaN, n };
+  return { cx, cz, r, rms: withResidual ? circleRms(x, z, from, to, cx, cz, r) : NaN, n };
 }
 
 /** Kåsa's algebraic circle fit (Kåsa 1976), kept for comparison in tests: a 3×3 linear least-squares problem. */
@@ -238,14 +253,7 @@ export function fitCircleKasa(
 ): Circle | null {
   const n = to - from;
   if (n < 3) return null;
-  let mx = 0,
-    mz = 0;
-  for (let i = from; i < to; i++) {
-    mx += x[i] as number;
-    mz += z[i] as number;
-  }
-  mx /= n;
-  mz /= n;
+  const [mx, mz] = centroid(x, z, from, to);
   let suu = 0,
     svv = 0,
     suv = 0,
@@ -273,10 +281,5 @@ export function fitCircleKasa(
   const r = Math.sqrt(uc * uc + vc * vc + (suu + svv) / n);
   const cx = uc + mx;
   const cz = vc + mz;
-  let s = 0;
-  for (let i = from; i < to; i++) {
-    const d = Math.hypot((x[i] as number) - cx, (z[i] as number) - cz) - r;
-    s += d * d;
-  }
-  return { cx, cz, r, rms: Math.sqrt(s / n), n };
+  return { cx, cz, r, rms: circleRms(x, z, from, to, cx, cz, r), n };
 }

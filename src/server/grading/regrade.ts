@@ -10,6 +10,7 @@ import {
   type SeamFile,
 } from '../../domain/index.js';
 import type { Logger } from '../log.js';
+import { SeamQueue } from '../seam-queue.js';
 import type { ServerGrade, Storage } from '../storage/types.js';
 import { foldSeam, seamFileOf, type LeftOut } from './fold.js';
 import { FreshReadings } from './fresh-readings.js';
@@ -147,11 +148,16 @@ export function gradeFolded(
  * again while it is being graded is graded once more afterwards, so a burst of batches costs one grade per seam.
  */
 export class Regrader {
-  readonly #pending = new Set<string>();
   /** Readings the ingest stored just now, for the next re-grade of their seam (see FreshReadings). */
   readonly fresh = new FreshReadings();
   readonly #graded = new Set<(seamId: string) => void>();
-  #running: Promise<void> | null = null;
+  readonly #queue = new SeamQueue(
+    async (seamId) => {
+      await this.regrade(seamId);
+      for (const listener of this.#graded) listener(seamId);
+    },
+    (seamId, error) => this.log.error('regradeFailed', { seamId, error }),
+  );
 
   constructor(
     private readonly storage: Storage,
@@ -160,13 +166,7 @@ export class Regrader {
   ) {}
 
   schedule(seamIds: Iterable<string>): void {
-    for (const id of seamIds) this.#pending.add(id);
-    if (this.#pending.size && !this.#running) {
-      this.#running = this.#drain().finally(() => {
-        this.#running = null;
-        if (this.#pending.size) this.schedule([]);
-      });
-    }
+    this.#queue.schedule(seamIds);
   }
 
   /** Calls the listener after each scheduled re-grade is saved (the review facts follow the grade). */
@@ -175,24 +175,8 @@ export class Regrader {
   }
 
   /** Resolves when every scheduled seam has been graded. */
-  async idle(): Promise<void> {
-    while (this.#running) await this.#running;
-  }
-
-  async #drain(): Promise<void> {
-    // Let the request that scheduled the work answer first.
-    await new Promise<void>((resolve) => setImmediate(resolve));
-    for (;;) {
-      const next = this.#pending.values().next();
-      if (next.done) return;
-      this.#pending.delete(next.value);
-      try {
-        await this.regrade(next.value);
-        for (const listener of this.#graded) listener(next.value);
-      } catch (error) {
-        this.log.error('regradeFailed', { seamId: next.value, error });
-      }
-    }
+  idle(): Promise<void> {
+    return this.#queue.idle();
   }
 
   async regrade(seamId: string, timed?: (stage: RegradeStage, ms: number) => void): Promise<ServerGrade> {

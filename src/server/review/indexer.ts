@@ -3,13 +3,17 @@
 // keep going. Facts are derived and can be made again at any time: at start, seams whose facts lag their grade are
 // marked too.
 import type { Logger } from '../log.js';
+import { SeamQueue } from '../seam-queue.js';
 import type { Storage } from '../storage/types.js';
 import { reviewFactsOf } from './facts.js';
 import { reviewSeam } from './seam-review.js';
 
 export class ReviewIndexer {
-  readonly #pending = new Set<string>();
-  #running: Promise<void> | null = null;
+  readonly #queue = new SeamQueue(
+    (seamId) => this.index(seamId),
+    (seamId, error) => this.log.error('reviewFactsFailed', { seamId, error }),
+    true,
+  );
 
   constructor(
     private readonly storage: Storage,
@@ -18,37 +22,17 @@ export class ReviewIndexer {
   ) {}
 
   schedule(seamIds: Iterable<string>): void {
-    for (const id of seamIds) this.#pending.add(id);
-    if (this.#pending.size && !this.#running) {
-      this.#running = this.#drain().finally(() => {
-        this.#running = null;
-        if (this.#pending.size) this.schedule([]);
-      });
-    }
+    this.#queue.schedule(seamIds);
   }
 
   /** How many seams wait for their facts. */
   get pending(): number {
-    return this.#pending.size;
+    return this.#queue.pending;
   }
 
   /** Resolves when every marked seam has its facts. */
-  async idle(): Promise<void> {
-    while (this.#running) await this.#running;
-  }
-
-  async #drain(): Promise<void> {
-    for (;;) {
-      await new Promise<void>((resolve) => setImmediate(resolve));
-      const next = this.#pending.values().next();
-      if (next.done) return;
-      this.#pending.delete(next.value);
-      try {
-        await this.index(next.value);
-      } catch (error) {
-        this.log.error('reviewFactsFailed', { seamId: next.value, error });
-      }
-    }
+  idle(): Promise<void> {
+    return this.#queue.idle();
   }
 
   /** Makes and saves the seam's facts from its records and stored server grade. */
