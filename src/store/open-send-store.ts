@@ -23,6 +23,11 @@ export async function openSendStore(
   });
   const ctx: StoreContext = { conn, now, newId: () => uuidv7() };
   await conn.open();
+  return { ...sendingSide(ctx), close: () => conn.close() };
+}
+
+/** The store calls the outbox sender makes; the full store (open-store.ts) serves the same ones. */
+export function sendingSide(ctx: StoreContext): SenderStore {
   return {
     unsealedEntries: (limit) => sendLog.unsealedEntries(ctx, limit),
     nextBatchSeq: () => sendLog.nextBatchSeq(ctx),
@@ -31,6 +36,5 @@ export async function openSendStore(
     noteAttempt: (batchId, error) => sendLog.noteAttempt(ctx, batchId, error),
     settleBatch: (batchId, answers) => sendLog.settleBatch(ctx, batchId, answers),
     releaseBatch: (batchId) => sendLog.releaseBatch(ctx, batchId),
-    close: () => conn.close(),
   };
 }

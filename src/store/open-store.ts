@@ -8,6 +8,7 @@ import { appendImport, listImports } from './import-writes.js';
 import { appendReading } from './reading-writes.js';
 import * as reads from './reads.js';
 import { DEFAULT_DB_NAME } from './schema.js';
+import { sendingSide } from './open-send-store.js';
 import * as sendLog from './send-log.js';
 import { answerChecklist, saveSeam, setSummary, startRound } from './seam-writes.js';
 import type { TagLinkRecord } from './api.js';
@@ -61,13 +62,7 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     outboxCount: () => reads.outboxCount(ctx),
     outboxEntries: (limit) => reads.outboxEntries(ctx, limit),
     outboxItems: () => sendLog.outboxItems(ctx),
-    unsealedEntries: (limit) => sendLog.unsealedEntries(ctx, limit),
-    nextBatchSeq: () => sendLog.nextBatchSeq(ctx),
-    keepSealedBatch: (batch) => sendLog.keepSealedBatch(ctx, batch),
-    pendingBatches: () => sendLog.pendingBatches(ctx),
-    noteAttempt: (batchId, error) => sendLog.noteAttempt(ctx, batchId, error),
-    settleBatch: (batchId, answers) => sendLog.settleBatch(ctx, batchId, answers),
-    releaseBatch: (batchId) => sendLog.releaseBatch(ctx, batchId),
+    ...sendingSide(ctx),
     acknowledge: (recordIds) => sendLog.acknowledge(ctx, recordIds),
     // Backups are rare: their schemas and merge rules load when asked for, not with the first screen.
     exportBackup: async () => (await import('./backup-export.js')).exportBackup(ctx),

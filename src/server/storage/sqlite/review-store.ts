@@ -15,6 +15,7 @@ import type {
   ReviewQueuePage,
   ReviewQueueRow,
 } from '../types.js';
+import { toChange, type ChangeDbRow } from './change-rows.js';
 import type { Db } from './open.js';
 
 interface FactsRow {
@@ -73,16 +74,6 @@ interface DecisionDbRow {
   server_level_met: string | null;
   jws: string;
   change_seq: number;
-}
-
-interface ChangeDbRow {
-  seq: number;
-  kind: 'assignment' | 'decision';
-  item_id: string;
-  seam_id: string;
-  device_kid: string | null;
-  item: string;
-  created_at: string;
 }
 
 /** Tags are kept as one text column (shown and searched, never filtered one by one). */
@@ -144,16 +135,6 @@ const toDecision = (r: DecisionDbRow): DecisionRow => ({
   serverLevelMet: r.server_level_met,
   jws: r.jws,
   changeSeq: r.change_seq,
-});
-
-const toChange = (r: ChangeDbRow): ChangeRow => ({
-  seq: r.seq,
-  kind: r.kind,
-  itemId: r.item_id,
-  seamId: r.seam_id,
-  deviceKid: r.device_kid,
-  item: r.item,
-  createdAt: r.created_at,
 });
 
 /** The newest decision per seam, and whether it covers every record the facts were made from. */

@@ -35,6 +35,7 @@ import type {
   Storage,
   StoredRecord,
 } from '../types.js';
+import { toChange, type ChangeDbRow } from './change-rows.js';
 import { joinJws, splitJws } from './jws-columns.js';
 import { openDatabase, type Db, type OpenOptions } from './open.js';
 import { ReviewStatements } from './review-store.js';
@@ -74,16 +75,6 @@ interface RecordRow {
   received_at: string;
 }
 
-interface ChangeDbRow {
-  seq: number;
-  kind: 'assignment' | 'decision';
-  item_id: string;
-  seam_id: string;
-  device_kid: string | null;
-  item: string;
-  created_at: string;
-}
-
 const toAccount = (r: AccountRow): AccountWithHash => ({
   id: r.id,
   username: r.username,
@@ -119,16 +110,6 @@ const toRecord = (r: RecordRow): StoredRecord => ({
   body: r.body,
   deviceCreatedAt: r.device_created_at,
   receivedAt: r.received_at,
-});
-
-const toChange = (r: ChangeDbRow): ChangeRow => ({
-  seq: r.seq,
-  kind: r.kind,
-  itemId: r.item_id,
-  seamId: r.seam_id,
-  deviceKid: r.device_kid,
-  item: r.item,
-  createdAt: r.created_at,
 });
 
 /** The tables a replayed batch must leave byte-identical, with the order their dump is taken in. */
