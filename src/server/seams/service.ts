@@ -2,7 +2,13 @@
 // checked by the grading core's rules before it is kept; an imported list is checked row by row and kept only
 // when every row is sound, so a list is never half imported.
 import type { Seam } from '../../domain/index.js';
-import { assignSeam, checkSeamSetup, putSeam } from '../admin/service.js';
+import {
+  assignSeam,
+  checkSeamSetup,
+  inspectorAccount,
+  putSeam,
+  type AssignTarget,
+} from '../admin/service.js';
 import type { AppDeps } from '../deps.js';
 import { HttpError } from '../http/errors.js';
 import type { Account } from '../storage/types.js';
@@ -40,13 +46,29 @@ export async function checkRows(
   return { seams, problems };
 }
 
-/** Keeps the seams (all checked already) and assigns each to the device when one is given. */
+/** A tablet or an inspector account to assign seams to, with a note for the inspector. */
+export type AssignTo = AssignTarget & { readonly note?: string };
+
+/** Refuses (4xx) a tablet or inspector that cannot be assigned to, before anything is kept. */
+export async function checkAssignTo(deps: AppDeps, assignTo: AssignTo): Promise<void> {
+  if (assignTo.inspector !== undefined) {
+    await inspectorAccount(deps, assignTo.inspector);
+    return;
+  }
+  const device = await deps.storage.getDevice(assignTo.deviceKid);
+  if (!device) throw new HttpError(404, 'unknownDevice', 'no device is enrolled with this kid');
+  if (device.revokedAt !== null) throw new HttpError(409, 'revoked', 'this device is revoked');
+}
+
+/** Keeps the seams (all checked already) and assigns each to the tablet or inspector when one is given. */
 export async function createSeams(
   deps: AppDeps,
   by: Account,
   seams: readonly Seam[],
-  assignTo: { readonly deviceKid: string; readonly note?: string } | null,
+  assignTo: AssignTo | null,
 ): Promise<number> {
+  // The target is checked first, so a list is never kept without the assignment asked for.
+  if (assignTo) await checkAssignTo(deps, assignTo);
   for (const seam of seams) {
     await putSeam(deps, by, seam, 'live');
     if (assignTo) await assignSeam(deps, by, { seamId: seam.id, ...assignTo });
@@ -54,7 +76,7 @@ export async function createSeams(
   deps.log.info('seamsCreated', {
     by: by.username,
     count: seams.length,
-    assigned: assignTo?.deviceKid ?? null,
+    assigned: assignTo?.deviceKid ?? assignTo?.inspector ?? null,
   });
   return seams.length;
 }

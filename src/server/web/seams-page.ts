@@ -1,19 +1,27 @@
 // The Seams page: set up a seam, import a seam list (CSV with a column mapping), and assign seams to tablets, which
 // receive them, signed by the server key, on their next sync.
-import type { Device, ReviewQueueRow } from '../storage/types.js';
+import type { Account, Device, ReviewQueueRow } from '../storage/types.js';
 import { SEAM_FIELDS, type SeamField } from '../seams/seam-fields.js';
 import type { RowProblem } from '../seams/service.js';
 import { html, type Html } from './html.js';
-import { layout } from './pages.js';
+import { inspectorSelect, layout } from './pages.js';
 import { demoBadge, level } from './review/parts.js';
 
-const deviceSelect = (devices: readonly Device[], name = 'device', optional = true): Html =>
-  html`<select name="${name}" ${optional ? '' : html`required`}>
-    ${optional ? html`<option value="">no tablet yet</option>` : html`<option value="">choose a tablet</option>`}
+const deviceSelect = (devices: readonly Device[]): Html =>
+  html`<select name="device">
+    <option value="">no tablet</option>
     ${devices
       .filter((d) => d.revokedAt === null)
       .map((d) => html`<option value="${d.kid}">${d.name}</option>`)}
   </select>`;
+
+/** The tablet and inspector choices of an assignment: one or the other. */
+const assignChoice = (devices: readonly Device[], inspectors: readonly Account[], what: string): Html =>
+  html`<fieldset class="assign-to">
+    <legend>${what}</legend>
+    <label>Tablet ${deviceSelect(devices)}</label>
+    <label>or inspector ${inspectorSelect(inspectors, 'inspector', null, 'no inspector')}</label>
+  </fieldset>`;
 
 export const problemList = (problems: readonly RowProblem[]): Html =>
   problems.length
@@ -30,6 +38,7 @@ export function seamsPage(input: {
   readonly seams: readonly ReviewQueueRow[];
   readonly total: number;
   readonly devices: readonly Device[];
+  readonly inspectors: readonly Account[];
   readonly notice?: string | null;
   readonly problems?: readonly RowProblem[];
 }): string {
@@ -39,7 +48,10 @@ export function seamsPage(input: {
       ${input.notice ? html`<p class="notice" role="status">${input.notice}</p>` : ''}
       ${problemList(input.problems ?? [])}
       <section class="panel" aria-labelledby="assign-title">
-        <h2 id="assign-title">Assign seams to a tablet</h2>
+        <h2 id="assign-title">Assign seams to a tablet or an inspector</h2>
+        <p class="muted">
+          Seams assigned to an inspector reach every tablet that works for that inspector (see Devices).
+        </p>
         <form method="post" action="/supervisor/seams/assign">
           <table>
             <thead>
@@ -83,7 +95,7 @@ export function seamsPage(input: {
               ? html`<p class="muted">The first ${input.seams.length} of ${input.total} seams by label.</p>`
               : ''
           }
-          <label>Tablet ${deviceSelect(input.devices, 'device', false)}</label>
+          ${assignChoice(input.devices, input.inspectors, 'Assign the ticked seams to')}
           <label>Note for the inspector <input type="text" name="note" maxlength="500" /></label>
           <button type="submit">Assign</button>
         </form>
@@ -100,7 +112,7 @@ export function seamsPage(input: {
                 /></label>`,
             )}
           </div>
-          <label>Assign to ${deviceSelect(input.devices)}</label>
+          ${assignChoice(input.devices, input.inspectors, 'Assign it to (optional)')}
           <button type="submit">Set up the seam</button>
         </form>
       </section>
@@ -127,6 +139,7 @@ export function mappingPage(input: {
   readonly rows: readonly Record<string, string>[];
   readonly guess: Partial<Record<SeamField, string>>;
   readonly devices: readonly Device[];
+  readonly inspectors: readonly Account[];
   readonly problems?: readonly RowProblem[];
 }): string {
   const preview = input.rows.slice(0, 5);
@@ -170,7 +183,7 @@ export function mappingPage(input: {
               >`,
           )}
         </div>
-        <label>Assign every imported seam to ${deviceSelect(input.devices)}</label>
+        ${assignChoice(input.devices, input.inspectors, 'Assign every imported seam to (optional)')}
         <button type="submit">Import the seams</button>
       </form>`,
     input.user,
