@@ -15,21 +15,31 @@ import type { Account } from '../storage/types.js';
 import { seamFromValues, type SeamValues } from './seam-fields.js';
 
 export interface RowProblem {
-  /** The row of the list (2 is the first row after the header), or 0 for the form. */
-  readonly row: number;
+  /** The line of the list's file the row starts on, or 0 for the form or the list as a whole. */
+  readonly line: number;
   readonly message: string;
 }
 
+/** One row of a list as checked: the seam it makes, or why it makes none. */
+export type RowResult =
+  | { readonly line: number; readonly seam: Seam; readonly problem?: undefined }
+  | { readonly line: number; readonly problem: string; readonly seam?: undefined };
+
+/**
+ * Checks every row (the grading core's set-up rules, ids unique in the list and new to the server) without
+ * keeping anything. lines[i] is the file line of rows[i]; the form's single row has line 0.
+ */
 export async function checkRows(
   deps: AppDeps,
   rows: readonly SeamValues[],
-  firstRow = 2,
-): Promise<{ seams: Seam[]; problems: RowProblem[] }> {
+  lines: readonly number[] = [],
+): Promise<{ seams: Seam[]; problems: RowProblem[]; results: RowResult[] }> {
   const seams: Seam[] = [];
   const problems: RowProblem[] = [];
+  const results: RowResult[] = [];
   const ids = new Set<string>();
   for (const [i, values] of rows.entries()) {
-    const row = firstRow + i;
+    const line = lines[i] ?? 0;
     try {
       const seam = checkSeamSetup(seamFromValues(values));
       if (ids.has(seam.id))
@@ -38,12 +48,14 @@ export async function checkRows(
         throw new HttpError(409, 'exists', `seam id "${seam.id}" exists already; nothing of it was changed`);
       ids.add(seam.id);
       seams.push(seam);
+      results.push({ line, seam });
     } catch (error) {
       if (!(error instanceof HttpError)) throw error;
-      problems.push({ row, message: error.message });
+      problems.push({ line, message: error.message });
+      results.push({ line, problem: error.message });
     }
   }
-  return { seams, problems };
+  return { seams, problems, results };
 }
 
 /** A tablet or an inspector account to assign seams to, with a note for the inspector. */

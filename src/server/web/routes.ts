@@ -13,9 +13,10 @@ import type { Account } from '../storage/types.js';
 import { devicesPage, loginPage, passwordPage } from './pages.js';
 import { assignSeam } from '../admin/service.js';
 import { parseReviewQuery } from '../review/query.js';
-import { guessMapping, parseSeamList, rowValues, SEAM_FIELDS, type SeamField } from '../seams/seam-fields.js';
+import { SEAM_FIELDS } from '../seams/seam-fields.js';
 import { checkAssignTo, checkRows, createSeams, type AssignTo, type RowProblem } from '../seams/service.js';
-import { mappingPage, seamsPage } from './seams-page.js';
+import { seamsPage } from './seams-page.js';
+import { LIST_BYTES, seamImportRoutes } from './seam-import-routes.js';
 import { reviewWebRoutes } from './review/routes.js';
 import { SUPERVISOR_CSS } from './style.js';
 
@@ -214,8 +215,6 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     if (inspector) return { inspector, ...note };
     return null;
   };
-  // A seam list may be long: its form takes more than the usual cap.
-  const listBytes = 4 * 1024 * 1024;
 
   app.get('/seams', supervisor, async (c) =>
     page(c, await seamsView(c, { notice: c.req.query('notice') ?? '' })),
@@ -224,13 +223,13 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
   app.post('/seams', supervisor, async (c) => {
     const form = await readForm(c, max);
     const values = Object.fromEntries(SEAM_FIELDS.map((f) => [f.key, form.get(f.key) ?? '']));
-    const { seams, problems } = await checkRows(deps, [values], 0);
+    const { seams, problems } = await checkRows(deps, [values]);
     if (problems.length) return page(c, await seamsView(c, { problems }), 400);
     try {
       await createSeams(deps, me(c), seams, deviceOf(form));
     } catch (error) {
       if (!(error instanceof HttpError) || error.status >= 500) throw error;
-      return page(c, await seamsView(c, { problems: [{ row: 0, message: error.message }] }), 400);
+      return page(c, await seamsView(c, { problems: [{ line: 0, message: error.message }] }), 400);
     }
     // The Seams page lists seams from their review facts: let the new ones show at once.
     await deps.regrader.idle();
@@ -241,81 +240,10 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
     );
   });
 
-  app.post('/seams/import/map', supervisor, async (c) => {
-    const form = await readForm(c, listBytes);
-    const csv = form.get('csv') ?? '';
-    const list = parseSeamList(csv);
-    const devices = await deps.storage.listDevices();
-    const problems = list.problems.map((message) => ({ row: 0, message }));
-    if (!list.headers.length || !list.rows.length)
-      problems.push({ row: 0, message: 'the list needs a header row and at least one seam row' });
-    return page(
-      c,
-      mappingPage({
-        user: me(c).username,
-        csv,
-        headers: list.headers,
-        rows: list.rows,
-        guess: guessMapping(list.headers),
-        devices,
-        inspectors: await deps.storage.listAccounts('inspector'),
-        problems,
-      }),
-      problems.length ? 400 : 200,
-    );
-  });
-
-  app.post('/seams/import', supervisor, async (c) => {
-    const form = await readForm(c, listBytes);
-    const csv = form.get('csv') ?? '';
-    const list = parseSeamList(csv);
-    const mapping: Partial<Record<SeamField, string>> = {};
-    for (const f of SEAM_FIELDS) {
-      const column = form.get(`map.${f.key}`) ?? '';
-      if (column && list.headers.includes(column)) mapping[f.key] = column;
-    }
-    const { seams, problems } = await checkRows(
-      deps,
-      list.rows.map((r) => rowValues(r, mapping)),
-    );
-    if (problems.length || !seams.length) {
-      const devices = await deps.storage.listDevices();
-      const all = [
-        ...problems,
-        ...(seams.length || problems.length ? [] : [{ row: 0, message: 'the list holds no seam' }]),
-      ];
-      return page(
-        c,
-        mappingPage({
-          user: me(c).username,
-          csv,
-          headers: list.headers,
-          rows: list.rows,
-          guess: mapping,
-          devices,
-          inspectors: await deps.storage.listAccounts('inspector'),
-          problems: all,
-        }),
-        400,
-      );
-    }
-    let assign: AssignTo | null;
-    try {
-      assign = deviceOf(form);
-      await createSeams(deps, me(c), seams, assign);
-    } catch (error) {
-      if (!(error instanceof HttpError) || error.status >= 500) throw error;
-      return page(c, await seamsView(c, { problems: [{ row: 0, message: error.message }] }), 400);
-    }
-    // The Seams page lists seams from their review facts: let the new ones show at once.
-    await deps.regrader.idle();
-    await deps.reviewIndexer.idle();
-    const notice = `${seams.length} seam${seams.length === 1 ? '' : 's'} imported${assign ? ' and assigned' : ''}.`;
-    return c.redirect(`/supervisor/seams?notice=${encodeURIComponent(notice)}`, 303);
-  });
+  app.route('/seams/import', seamImportRoutes(deps));
 
   app.post('/seams/assign', supervisor, async (c) => {
-    const form = await readForm(c, listBytes);
+    const form = await readForm(c, LIST_BYTES);
     const ids = form.getAll('seam');
     let assign: AssignTo | null;
     try {
@@ -330,7 +258,7 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
       for (const seamId of ids) await assignSeam(deps, me(c), { seamId, ...assign });
     } catch (error) {
       if (!(error instanceof HttpError) || error.status >= 500) throw error;
-      return page(c, await seamsView(c, { problems: [{ row: 0, message: error.message }] }), 400);
+      return page(c, await seamsView(c, { problems: [{ line: 0, message: error.message }] }), 400);
     }
     const them = ids.length === 1 ? 'it' : 'them';
     const notice =

@@ -1,7 +1,7 @@
 // The Seams page: set up a seam, import a seam list (CSV with a column mapping), and assign seams to tablets, which
 // receive them, signed by the server key, on their next sync.
 import type { Account, Device, ReviewQueueRow } from '../storage/types.js';
-import { SEAM_FIELDS, type SeamField } from '../seams/seam-fields.js';
+import { SEAM_FIELDS } from '../seams/seam-fields.js';
 import type { RowProblem } from '../seams/service.js';
 import { html, type Html } from './html.js';
 import { inspectorSelect, layout } from './pages.js';
@@ -16,7 +16,11 @@ const deviceSelect = (devices: readonly Device[]): Html =>
   </select>`;
 
 /** The tablet and inspector choices of an assignment: one or the other. */
-const assignChoice = (devices: readonly Device[], inspectors: readonly Account[], what: string): Html =>
+export const assignChoice = (
+  devices: readonly Device[],
+  inspectors: readonly Account[],
+  what: string,
+): Html =>
   html`<fieldset class="assign-to">
     <legend>${what}</legend>
     <label>Tablet ${deviceSelect(devices)}</label>
@@ -28,7 +32,7 @@ export const problemList = (problems: readonly RowProblem[]): Html =>
     ? html`<div class="error" role="alert">
         <p>Nothing was kept. Put these right and try again:</p>
         <ul>
-          ${problems.map((p) => html`<li>${p.row ? `Row ${p.row}: ` : ''}${p.message}</li>`)}
+          ${problems.map((p) => html`<li>${p.line ? `Line ${p.line}: ` : ''}${p.message}</li>`)}
         </ul>
       </div>`
     : html``;
@@ -119,73 +123,18 @@ export function seamsPage(input: {
       <section class="panel" aria-labelledby="import-title">
         <h2 id="import-title">Import a seam list (CSV)</h2>
         <p>
-          Paste the list with a header row; the next step maps its columns to the seam's fields. Every row is
-          checked, and nothing is kept unless every row is sound.
+          Choose a CSV file, or paste the list, with a header row. The next steps map its columns to the
+          seam's fields and check every row, naming the line and the reason of each problem, before anything
+          is kept.
         </p>
-        <form method="post" action="/supervisor/seams/import/map">
-          <label>Seam list (CSV) <textarea name="csv" rows="8" required></textarea></label>
+        <form method="post" action="/supervisor/seams/import/map" enctype="multipart/form-data">
+          <label
+            >Seam list file (CSV) <input type="file" name="file" accept=".csv,.txt,text/csv,text/plain"
+          /></label>
+          <label>or paste it here <textarea name="csv" rows="6"></textarea></label>
           <button type="submit">Next: map the columns</button>
         </form>
       </section>`,
-    input.user,
-    { bodyClass: 'wide' },
-  );
-}
-
-export function mappingPage(input: {
-  readonly user: string;
-  readonly csv: string;
-  readonly headers: readonly string[];
-  readonly rows: readonly Record<string, string>[];
-  readonly guess: Partial<Record<SeamField, string>>;
-  readonly devices: readonly Device[];
-  readonly inspectors: readonly Account[];
-  readonly problems?: readonly RowProblem[];
-}): string {
-  const preview = input.rows.slice(0, 5);
-  return layout(
-    'Map the seam list',
-    html`<p><a href="/supervisor/seams">← Seams</a></p>
-      <h1>Map the seam list's columns</h1>
-      ${problemList(input.problems ?? [])}
-      <p>${input.rows.length} row${input.rows.length === 1 ? '' : 's'} read. The first rows:</p>
-      <table>
-        <thead>
-          <tr>
-            ${input.headers.map((h) => html`<th scope="col">${h}</th>`)}
-          </tr>
-        </thead>
-        <tbody>
-          ${preview.map(
-            (r) =>
-              html`<tr>
-                ${input.headers.map((h) => html`<td>${r[h] ?? ''}</td>`)}
-              </tr>`,
-          )}
-        </tbody>
-      </table>
-      <form method="post" action="/supervisor/seams/import">
-        <textarea name="csv" hidden>${input.csv}</textarea>
-        <div class="columns">
-          ${SEAM_FIELDS.map(
-            (f) =>
-              html`<label
-                >${f.label}${f.required ? ' *' : ''}
-                <select name="map.${f.key}">
-                  <option value="">${f.required ? 'choose a column' : 'not in the list'}</option>
-                  ${input.headers.map(
-                    (h) =>
-                      html`<option value="${h}" ${input.guess[f.key] === h ? html`selected` : ''}>
-                        ${h}
-                      </option>`,
-                  )}
-                </select></label
-              >`,
-          )}
-        </div>
-        ${assignChoice(input.devices, input.inspectors, 'Assign every imported seam to (optional)')}
-        <button type="submit">Import the seams</button>
-      </form>`,
     input.user,
     { bodyClass: 'wide' },
   );
