@@ -26,11 +26,11 @@ const MAPPING = {
 };
 
 /** The list as a spreadsheet on Windows saves it: Windows-1252, so "ä" and "ß" are single bytes. */
-function windows1252(text: string): Uint8Array {
+function windows1252(text: string): Uint8Array<ArrayBuffer> {
   return Uint8Array.from([...text].map((ch) => ({ ä: 0xe4, ß: 0xdf })[ch] ?? ch.charCodeAt(0)));
 }
 
-async function upload(server: TestServer, bytes: Uint8Array, name: string): Promise<Response> {
+async function upload(server: TestServer, bytes: Uint8Array<ArrayBuffer>, name: string): Promise<Response> {
   const form = new FormData();
   form.set('file', new File([bytes], name, { type: 'text/csv' }));
   form.set('csv', '');
