@@ -1,4 +1,5 @@
 // The contract of the one module that touches IndexedDB. Screens and the sync code use only this.
+import type { DeviceGrade } from '../protocol/batch.js';
 import type { ViewingConditions } from '../domain/model/viewing.js';
 import type {
   ChecklistAnswerKind,
@@ -346,6 +347,8 @@ export interface Store {
   outboxItems(): Promise<OutboxItem[]>;
   /** Waiting records in no sealed batch and not refused by the server, oldest first: what the next batch takes. */
   unsealedEntries(limit: number): Promise<OutboxEntry[]>;
+  /** The grade last shown for each of these seams (live, graded ones), as it travels with a batch. */
+  shownGrades(seamIds: readonly string[]): Promise<DeviceGrade[]>;
   /** Reserves the next batch number. */
   nextBatchSeq(): Promise<number>;
   /**
