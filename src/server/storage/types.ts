@@ -489,6 +489,9 @@ export interface Storage {
     limit: number,
   ): Promise<{ changes: ChangeRow[]; through: number; more: boolean }>;
 
+  /** Seams ever assigned to the device, or to the inspector account, by id. */
+  assignedSeams(target: { readonly deviceKid: string } | { readonly inspectorId: number }): Promise<string[]>;
+
   // Review (decisions, facts for the queue)
   /** The newest receive sequence number among the seam's records (0 when it has none). */
   latestRecordSeq(seamId: string): Promise<number>;

@@ -19,6 +19,14 @@ import { seamsPage } from './seams-page.js';
 import { LIST_BYTES, seamImportRoutes } from './seam-import-routes.js';
 import { reviewWebRoutes } from './review/routes.js';
 import { SUPERVISOR_CSS } from './style.js';
+import { TAG_SHEET_CSS } from './tag-sheet-style.js';
+import { sheetChoice, tagSheetPage } from './tag-sheet-page.js';
+import { seamTags } from '../seams/seam-tags.js';
+import { foldSeam } from '../grading/fold.js';
+
+/** A tag sheet holds at most this many seams and labels (some 20 A4 sheets): enough for a day's work. */
+const MAX_SHEET_SEAMS = 500;
+const MAX_SHEET_LABELS = 500;
 
 const page = (c: Context, body: string, status: 200 | 400 | 401 | 403 = 200) => {
   c.header('Cache-Control', 'no-store');
@@ -35,7 +43,7 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
   app.get('/style.css', (c) => {
     c.header('Content-Type', 'text/css; charset=utf-8');
     c.header('Cache-Control', 'no-cache');
-    return c.body(SUPERVISOR_CSS);
+    return c.body(SUPERVISOR_CSS + TAG_SHEET_CSS);
   });
 
   app.get('/', (c) => c.redirect('/supervisor/review', 303));
@@ -241,6 +249,56 @@ export function webRoutes(deps: AppDeps): Hono<AppEnv> {
   });
 
   app.route('/seams/import', seamImportRoutes(deps));
+
+  // The tag sheet of the ticked seams (seam=…, repeatable) and of the seams assigned to a tablet or an inspector.
+  app.get('/seams/tags', supervisor, async (c) => {
+    const query = new URL(c.req.url).searchParams;
+    const ids = new Set(query.getAll('seam').filter(Boolean));
+    const selection: [string, string][] = [...ids].map((id) => ['seam', id]);
+    const kid = query.get('device') ?? '';
+    const inspector = query.get('inspector') ?? '';
+    if (kid) {
+      for (const id of await deps.storage.assignedSeams({ deviceKid: kid })) ids.add(id);
+      selection.push(['device', kid]);
+    }
+    if (inspector) {
+      const account = await deps.storage.findAccount(inspector);
+      if (account?.role === 'inspector')
+        for (const id of await deps.storage.assignedSeams({ inspectorId: account.id })) ids.add(id);
+      selection.push(['inspector', inspector]);
+    }
+    if (!ids.size)
+      return page(
+        c,
+        await seamsView(c, {
+          problems: [
+            {
+              line: 0,
+              message:
+                'Tick at least one seam, or choose a tablet or an inspector with seams assigned, to print their tags.',
+            },
+          ],
+        }),
+        400,
+      );
+    const seams = [];
+    for (const id of [...ids].slice(0, MAX_SHEET_SEAMS)) {
+      const material = await deps.storage.seamMaterial(id);
+      const setup = foldSeam(material).seam;
+      if (!setup) continue;
+      seams.push({ id, label: setup.label, tags: seamTags(material) });
+    }
+    return page(
+      c,
+      tagSheetPage({
+        user: me(c).username,
+        seams,
+        choice: sheetChoice(query),
+        selection,
+        max: MAX_SHEET_LABELS,
+      }),
+    );
+  });
 
   app.post('/seams/assign', supervisor, async (c) => {
     const form = await readForm(c, LIST_BYTES);

@@ -102,6 +102,9 @@ export function seamsPage(input: {
           ${assignChoice(input.devices, input.inspectors, 'Assign the ticked seams to')}
           <label>Note for the inspector <input type="text" name="note" maxlength="500" /></label>
           <button type="submit">Assign</button>
+          <button type="submit" formaction="/supervisor/seams/tags" formmethod="get" class="secondary">
+            Print the tag sheet of the ticked seams (or of those assigned to the tablet or inspector chosen)
+          </button>
         </form>
       </section>
       <section class="panel" aria-labelledby="new-title">

@@ -296,6 +296,12 @@ export class SqliteStorage implements Storage {
          ORDER BY c.seq LIMIT @limit`,
       ),
       lastChange: p('SELECT coalesce(max(seq), 0) AS seq FROM changes'),
+      seamsAssignedToDevice: p(
+        `SELECT DISTINCT seam_id AS id FROM changes WHERE kind = 'assignment' AND device_kid = ? ORDER BY seam_id`,
+      ),
+      seamsAssignedToInspector: p(
+        `SELECT DISTINCT seam_id AS id FROM changes WHERE kind = 'assignment' AND inspector_id = ? ORDER BY seam_id`,
+      ),
     };
   }
 
@@ -887,6 +893,15 @@ export class SqliteStorage implements Storage {
       const through = more ? (changes[changes.length - 1] as ChangeRow).seq : Math.max(afterSeq, last);
       return { changes, through, more };
     })();
+  }
+
+  async assignedSeams(target: { deviceKid: string } | { inspectorId: number }): Promise<string[]> {
+    const rows = (
+      'deviceKid' in target
+        ? this.#s.seamsAssignedToDevice.all(target.deviceKid)
+        : this.#s.seamsAssignedToInspector.all(target.inspectorId)
+    ) as { id: string }[];
+    return rows.map((r) => r.id);
   }
 
   async latestRecordSeq(seamId: string): Promise<number> {
