@@ -85,6 +85,11 @@ describe('assignments to an inspector', () => {
       });
     }
     for (const device of [otto, nobody]) expect((await pullItems(server, device, null)).items).toEqual([]);
+    // The seam page names the inspector the seam was assigned to.
+    const seamPage = await server.request(`/supervisor/review/seams/${s1}`, {
+      headers: { cookie: await server.supervisorCookie() },
+    });
+    expect((await seamPage.text()).replace(/\s+/g, ' ')).toContain('to inspector ines by supervisor');
 
     // A decision on the inspector's seam goes to the inspector's devices too, though they sent nothing for it.
     expect(

@@ -94,8 +94,9 @@ export function seamPage(
                   ${d.assignments.map(
                     (a) =>
                       html`<li>
-                        to ${a.deviceName ?? a.deviceKid ?? '—'} by ${a.assignedBy ?? '—'},
-                        ${utc(a.assignedAt)}${a.note ? ` — ${a.note}` : ''}
+                        to
+                        ${a.inspector !== null ? `inspector ${a.inspector}` : (a.deviceName ?? a.deviceKid ?? '—')}
+                        by ${a.assignedBy ?? '—'}, ${utc(a.assignedAt)}${a.note ? ` — ${a.note}` : ''}
                       </li>`,
                   )}
                 </ul>`
