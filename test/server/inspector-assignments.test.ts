@@ -1,6 +1,12 @@
 // Seams assigned to an inspector account: every device tied to that inspector (by its enrolment code, or later on
 // the Devices page) pulls them, signed and addressed to itself, exactly once; other devices do not.
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { MIGRATIONS } from '../../src/server/storage/sqlite/migrations.js';
+import { openDatabase } from '../../src/server/storage/sqlite/open.js';
+import { SqliteStorage } from '../../src/server/storage/sqlite/sqlite-storage.js';
 import { verifyServerItem, type PullReply, type ServerItem } from '../../src/protocol/index.js';
 import { testSeam } from './records.js';
 import { SimDevice } from './sim-device.js';
@@ -203,5 +209,32 @@ describe('assignments to an inspector', () => {
     const ticked = await form(server, '/supervisor/seams/assign', { seam: id ?? '', inspector: 'ines' });
     expect(ticked.status).toBe(303);
     expect(decodeURIComponent(ticked.headers.get('location') ?? '')).toContain('assigned to inspector ines');
+  });
+});
+
+describe('migration 4 on a database in use', () => {
+  it('keeps the devices and what they pull; the devices work for no inspector until a supervisor ties them', async () => {
+    const file = join(mkdtempSync(join(tmpdir(), 'beadbook-m4-')), 'beadbook.sqlite');
+    const before = openDatabase(file, { migrations: MIGRATIONS.filter((m) => m.version <= 3) });
+    const kid = 'K'.repeat(43);
+    before
+      .prepare('INSERT INTO devices (kid, public_jwk, name, enrolled_at) VALUES (?, ?, ?, ?)')
+      .run(kid, '{}', 'Old tablet', '2026-11-01T08:00:00.000Z');
+    before
+      .prepare(
+        `INSERT INTO changes (kind, item_id, seam_id, device_kid, item, created_at) VALUES ('assignment', ?, ?, ?, ?, ?)`,
+      )
+      .run('item-1', 'seam-1', kid, '{"id":"item-1"}', '2026-11-01T09:00:00.000Z');
+    before.close();
+
+    const storage = SqliteStorage.open(file);
+    expect(await storage.getDevice(kid)).toMatchObject({
+      name: 'Old tablet',
+      inspectorId: null,
+      inspectorName: null,
+    });
+    const page = await storage.changesFor(kid, 0, 10);
+    expect(page.changes.map((c) => [c.itemId, c.deviceKid, c.inspectorId])).toEqual([['item-1', kid, null]]);
+    await storage.close();
   });
 });
