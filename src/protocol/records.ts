@@ -14,10 +14,32 @@ import {
   type Problem,
 } from '../domain/index.js';
 import { count, isoTimestamp, obj, text, toProblems, choice } from '../domain/model/schema-kit.js';
+import { viewingConditionsSchema } from '../domain/model/viewing.js';
 import { RECORD_SCHEMA_VERSION } from './version.js';
 
-export const RECORD_KINDS = ['seamSetup', 'round', 'checklistAnswer', 'reading', 'tagLink'] as const;
+export const RECORD_KINDS = [
+  'seamSetup',
+  'round',
+  'checklistAnswer',
+  'reading',
+  'tagLink',
+  'viewing',
+] as const;
 export type RecordKind = (typeof RECORD_KINDS)[number];
+
+/** The schema version each kind first appeared in: a record travels with it (see RECORD_SCHEMA_VERSION). */
+export const RECORD_KIND_VERSIONS: Readonly<Record<RecordKind, number>> = {
+  seamSetup: 1,
+  round: 1,
+  checklistAnswer: 1,
+  reading: 1,
+  tagLink: 1,
+  viewing: 2,
+};
+
+/** The version a record of this kind is sent with (1 for a kind this code does not know). */
+export const recordSchemaVersionOf = (kind: string): number =>
+  (RECORD_KIND_VERSIONS as Readonly<Record<string, number>>)[kind] ?? 1;
 
 const id = text(64, 'an id');
 export const TAG_ACTIONS = ['link', 'unlink'] as const;
@@ -58,6 +80,13 @@ export const recordBodySchemas = {
     tag: text(MAX_TAG_LENGTH, 'a tag'),
     via: choice(TAG_VIA),
     at: isoTimestamp(),
+  }),
+  /** Version 2: how a round was looked at; a later record for the same round supersedes an earlier one. */
+  viewing: obj('a viewing record body', {
+    seamId: id,
+    round: count(1, 999),
+    conditions: viewingConditionsSchema,
+    recordedAt: isoTimestamp(),
   }),
 } as const;
 
@@ -185,6 +214,12 @@ function crossChecks(record: SyncRecord): Problem[] {
   if (record.body.seamId !== record.seamId) {
     problems.push({ path: 'body.seamId', message: `must equal the record's seamId "${record.seamId}"` });
   }
+  if (record.schemaVersion < RECORD_KIND_VERSIONS[record.kind]) {
+    problems.push({
+      path: 'schemaVersion',
+      message: `a ${record.kind} record has schema version ${RECORD_KIND_VERSIONS[record.kind]} or later`,
+    });
+  }
   switch (record.kind) {
     case 'seamSetup':
       if (record.body.seam.id !== record.seamId) {
@@ -220,6 +255,8 @@ function crossChecks(record: SyncRecord): Problem[] {
       }
       break;
     }
+    case 'viewing':
+      break;
   }
   return problems;
 }
@@ -267,7 +304,7 @@ export function recordFromOutbox(entry: OutboxEntryLike): Readonly<Record<string
   return {
     id: entry.recordId,
     kind: entry.kind,
-    schemaVersion: RECORD_SCHEMA_VERSION,
+    schemaVersion: recordSchemaVersionOf(entry.kind),
     seq: entry.seq,
     seamId: entry.seamId,
     createdAt: entry.createdAt,

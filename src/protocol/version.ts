@@ -4,8 +4,12 @@
 /** The version of the batch, enrolment and pull formats in this module. */
 export const PROTOCOL_VERSION = 1;
 
-/** The newest record schema this code understands; a record that declares a newer one is parked by the server. */
-export const RECORD_SCHEMA_VERSION = 1;
+/**
+ * The newest record schema this code understands; a record that declares a newer one is parked by the server.
+ * Version 2 added the `viewing` record (a round's viewing and lighting conditions); every other kind is unchanged
+ * and still travels as version 1, so a version-1 server accepts it and parks only what it cannot read.
+ */
+export const RECORD_SCHEMA_VERSION = 2;
 
 /** Media type of a flattened JWS JSON serialization (RFC 7515 §9.2.2): every signed request body uses it. */
 export const JOSE_JSON = 'application/jose+json';

@@ -1,7 +1,7 @@
 // The demo yard on the server: loaded only when asked for (npm start -- --demo, or BEADBOOK_DEMO=1), kept in the
 // demo namespace and marked as demo wherever it shows. Its rounds, answers and readings are stored as records
 // the server made itself (no device, no batch), then graded like any seam.
-import { canonicalJson, RECORD_SCHEMA_VERSION } from '../protocol/index.js';
+import { canonicalJson, recordSchemaVersionOf } from '../protocol/index.js';
 import { kestrelPointYard } from '../demo/kestrel-point-yard.js';
 import type { AppDeps } from './deps.js';
 import type { StoredRecord } from './storage/types.js';
@@ -27,7 +27,7 @@ export async function loadDemoYard(deps: AppDeps): Promise<{ seams: number; reco
       out.push({
         id,
         kind,
-        schemaVersion: RECORD_SCHEMA_VERSION,
+        schemaVersion: recordSchemaVersionOf(kind),
         seamId,
         deviceSeq: out.length + 1,
         body: canonicalJson(body),

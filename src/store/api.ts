@@ -1,4 +1,6 @@
 // The contract of the one module that touches IndexedDB. Screens and the sync code use only this.
+import type { DeviceGrade } from '../protocol/batch.js';
+import type { ViewingConditions } from '../domain/model/viewing.js';
 import type {
   ChecklistAnswerKind,
   ChecklistItem,
@@ -39,6 +41,8 @@ export interface RoundRecord {
   readonly startedAt: string;
   readonly examiner?: { readonly name: string; readonly qualification?: string };
   readonly checklist: Round['checklist'];
+  /** How the round was looked at (the latest the inspector gave; earlier ones stay in the outbox history). */
+  readonly viewing?: ViewingConditions;
 }
 
 export interface ChecklistAnswer {
@@ -55,7 +59,7 @@ export interface ReadingRecord {
   readonly localSeq: number;
 }
 
-export type OutboxKind = 'seamSetup' | 'round' | 'checklistAnswer' | 'reading' | 'tagLink';
+export type OutboxKind = 'seamSetup' | 'round' | 'checklistAnswer' | 'reading' | 'tagLink' | 'viewing';
 
 /**
  * What each kind of outbox entry carries as its body (added with the store; `OutboxEntry.body` stays `unknown` for
@@ -90,6 +94,13 @@ export interface OutboxBodies {
     readonly tag: string;
     readonly via: TagVia | 'confirmedMove';
     readonly at: string;
+  };
+  /** A round's viewing and lighting conditions (record schema version 2); a later one corrects an earlier one. */
+  readonly viewing: {
+    readonly seamId: string;
+    readonly round: number;
+    readonly conditions: ViewingConditions;
+    readonly recordedAt: string;
   };
 }
 
@@ -310,6 +321,11 @@ export interface Store {
     answer: ChecklistAnswer,
   ): Promise<RoundRecord>;
   /**
+   * Records how the round was looked at (viewing, illuminance, distance, angle, lighting, aids), queued for the
+   * server for a live seam. The same conditions again change nothing; new ones correct the earlier ones.
+   */
+  recordViewing(seamId: string, round: number, conditions: ViewingConditions): Promise<RoundRecord>;
+  /**
    * One seam's readings in order of entry on this device; with `afterLocalSeq`, only those entered after it (a
    * screen that holds the earlier ones reads just what is new).
    */
@@ -331,6 +347,8 @@ export interface Store {
   outboxItems(): Promise<OutboxItem[]>;
   /** Waiting records in no sealed batch and not refused by the server, oldest first: what the next batch takes. */
   unsealedEntries(limit: number): Promise<OutboxEntry[]>;
+  /** The grade last shown for each of these seams (live, graded ones), as it travels with a batch. */
+  shownGrades(seamIds: readonly string[]): Promise<DeviceGrade[]>;
   /** Reserves the next batch number. */
   nextBatchSeq(): Promise<number>;
   /**

@@ -65,5 +65,11 @@ export function mergeRound(existing: RoundRecord, incoming: RoundRecord): RoundR
   if (clashes.length) {
     return `conflict: ${where} answers ${clashes.join(', ')} differently here; the answers here were kept`;
   }
-  return { ...existing, checklist: { ...incoming.checklist, ...existing.checklist } };
+  // Viewing conditions are kept as here; a round that has none here takes the backup's.
+  const viewing = existing.viewing ?? incoming.viewing;
+  return {
+    ...existing,
+    checklist: { ...incoming.checklist, ...existing.checklist },
+    ...(viewing ? { viewing } : {}),
+  };
 }

@@ -10,6 +10,7 @@ import {
   seamSchema,
 } from '../domain/index.js';
 import { choice, count, isoTimestamp, obj, text, toProblems } from '../domain/model/schema-kit.js';
+import { viewingConditionsSchema } from '../domain/model/viewing.js';
 import type { OutboxEntry, ReadingRecord, RoundRecord, SeamRecord, TagLinkRecord } from './api.js';
 
 const namespace = choice(['live', 'demo']);
@@ -37,6 +38,7 @@ const roundRecord = obj('round record', {
   ...roundSchema.entries,
   seamId: text(64, 'an id'),
   startedAt: isoTimestamp(),
+  viewing: v.optional(viewingConditionsSchema),
 });
 
 const readingRecord = obj('reading record', {
@@ -49,7 +51,7 @@ const readingRecord = obj('reading record', {
 const outboxEntry = obj('outbox entry', {
   seq: sequence,
   recordId: text(64, 'an id'),
-  kind: choice(['seamSetup', 'round', 'checklistAnswer', 'reading', 'tagLink']),
+  kind: choice(['seamSetup', 'round', 'checklistAnswer', 'reading', 'tagLink', 'viewing']),
   seamId: text(64, 'an id'),
   body: v.record(v.string(), v.unknown(), 'must be an object'),
   createdAt: isoTimestamp(),

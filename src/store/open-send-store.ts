@@ -36,5 +36,6 @@ export function sendingSide(ctx: StoreContext): SenderStore {
     noteAttempt: (batchId, error) => sendLog.noteAttempt(ctx, batchId, error),
     settleBatch: (batchId, answers) => sendLog.settleBatch(ctx, batchId, answers),
     releaseBatch: (batchId) => sendLog.releaseBatch(ctx, batchId),
+    shownGrades: (seamIds) => sendLog.shownGrades(ctx, seamIds),
   };
 }

@@ -33,6 +33,7 @@ export interface OpenStoreOptions {
 
 /** Opens (creating or upgrading as needed) the database and resolves once it is ready to use. */
 const pulled = () => import('./pulled.js');
+const viewingWrites = () => import('./viewing-writes.js');
 
 export async function openStore(options: OpenStoreOptions = {}): Promise<Store> {
   const now = options.now ?? (() => new Date().toISOString());
@@ -54,6 +55,8 @@ export async function openStore(options: OpenStoreOptions = {}): Promise<Store> 
     listRounds: (seamId) => reads.listRounds(ctx, seamId),
     startRound: (seamId, kind, examiner) => startRound(ctx, seamId, kind, examiner),
     answerChecklist: (seamId, round, item, answer) => answerChecklist(ctx, seamId, round, item, answer),
+    recordViewing: async (seamId, round, conditions) =>
+      (await viewingWrites()).recordViewing(ctx, seamId, round, conditions),
     listReadings: (seamId, afterLocalSeq) => reads.listReadings(ctx, seamId, afterLocalSeq),
     appendReading: (seamId, reading) => appendReading(ctx, seamId, reading),
     appendImport: (seamId, record, readings) => appendImport(ctx, seamId, record, readings),

@@ -5,6 +5,7 @@ import type { OutboxEntry, OutboxItem, RecordAnswer, SealedBatchRecord, SendStat
 import type { IDBPObjectStore, StoreNames } from 'idb';
 import type { StoreContext } from './context.js';
 import type { BeadbookDB } from './schema.js';
+import type { DeviceGrade } from '../protocol/batch.js';
 
 /** Waiting records with how sending went for each, oldest first. */
 export async function outboxItems(ctx: StoreContext): Promise<OutboxItem[]> {
@@ -171,3 +172,27 @@ export const acknowledge = (ctx: StoreContext, recordIds: readonly string[]): Pr
   ctx.conn.run(['outbox', 'sendLog'], 'readwrite', (tx) =>
     removeAcknowledged(tx.objectStore('outbox'), tx.objectStore('sendLog'), recordIds),
   );
+
+/**
+ * The grade this tablet last showed for each of the seams (live ones it has graded), to travel with a batch so the
+ * server can keep it beside its own. A cache of what was shown, not a record: it is sent, never acknowledged.
+ */
+export const shownGrades = (ctx: StoreContext, seamIds: readonly string[]): Promise<DeviceGrade[]> =>
+  ctx.conn.run(['seams'], 'readonly', async (tx) => {
+    const grades: DeviceGrade[] = [];
+    for (const seamId of [...new Set(seamIds)].sort()) {
+      const seam = await tx.store.get(seamId);
+      const g = seam?.namespace === 'live' ? seam.summary : undefined;
+      // Field by field: the batch schema is closed, so nothing else the cache may hold one day can spoil a batch.
+      if (g)
+        grades.push({
+          seamId,
+          state: g.state,
+          levelMet: g.levelMet,
+          meetsRequired: g.meetsRequired,
+          readingCount: g.readingCount,
+          gradedAt: g.gradedAt,
+        });
+    }
+    return grades;
+  });

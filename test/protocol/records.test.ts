@@ -75,7 +75,13 @@ describe('judging a record', () => {
       { schemaVersion: RECORD_SCHEMA_VERSION + 1, extra: [1, 2] },
     );
     const v = judgeRecord(newer);
-    expect(v).toMatchObject({ status: 'parked', id: 'p', kind: 'photo', schemaVersion: 2, seamId: 'seam-1' });
+    expect(v).toMatchObject({
+      status: 'parked',
+      id: 'p',
+      kind: 'photo',
+      schemaVersion: RECORD_SCHEMA_VERSION + 1,
+      seamId: 'seam-1',
+    });
     expect(v.status === 'parked' && v.raw).toEqual(newer);
     expect(judgeRecord(record('reading', 'q', 'not even an object', { schemaVersion: 9 })).status).toBe(
       'parked',

@@ -82,8 +82,8 @@ describe('seam lists', () => {
     expect(refused.status).toBe(400);
     const refusedHtml = await refused.text();
     expect(refusedHtml).toContain('Nothing was kept.');
-    expect(refusedHtml).toMatch(/Row 3: [^<]*joint\.type/);
-    expect(refusedHtml).toMatch(/Row 3: [^<]*plate1\.thickness/);
+    expect(refusedHtml).toMatch(/Line 3: [^<]*joint\.type/);
+    expect(refusedHtml).toMatch(/Line 3: [^<]*plate1\.thickness/);
     expect(await server.storage.getSeam('S-100')).toBeUndefined();
 
     const done = await post(

@@ -8,7 +8,14 @@ import { uuidv7 } from '../../src/store/ids.js';
 import { allNoneFound, bodies, testSeam, toeReading } from './records.js';
 import { SimDevice } from './sim-device.js';
 import { jsonOf, recordCounts, recordTablesHash, testServer, type TestServer } from './support.js';
-import { canonicalJson, jwsBody, sealBatch, signJws, type BatchReply } from '../../src/protocol/index.js';
+import {
+  canonicalJson,
+  jwsBody,
+  RECORD_SCHEMA_VERSION,
+  sealBatch,
+  signJws,
+  type BatchReply,
+} from '../../src/protocol/index.js';
 
 /** A seam with its set-up, first round, a complete checklist and `n` toe-angle readings, queued on the device. */
 function queueSeam(device: SimDevice, n: number, seamId = uuidv7()) {
@@ -276,7 +283,7 @@ describe('F14: records of a newer schema', () => {
       seq: 99,
       id: uuidv7(),
       kind: 'photo',
-      schemaVersion: 2,
+      schemaVersion: RECORD_SCHEMA_VERSION + 1,
       seamId: seam.id,
       createdAt: '2026-12-01T09:00:00Z',
       body: { sha256: 'ab'.repeat(32), caption: 'toe at 120 mm' },

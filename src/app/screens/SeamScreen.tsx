@@ -16,6 +16,8 @@ import type {
 } from '../../store/api.js';
 import { DecisionPanel } from '../components/DecisionPanel.js';
 import { ChecklistPanel } from '../components/ChecklistPanel.js';
+import { ViewingPanel } from '../components/ViewingPanel.js';
+import type { ViewingConditions } from '../../domain/model/viewing.js';
 import { fmtLevel, fmtWhen, ROUND_KIND_LABEL } from '../components/format.js';
 import { GradePanel } from '../components/GradePanel.js';
 import { ImperfectionTable } from '../components/ImperfectionTable.js';
@@ -59,6 +61,7 @@ function RoundDetail(props: {
   readonly seamLength: number;
   readonly latest: boolean;
   readonly onAnswer: (item: ChecklistItem, answer: ChecklistAnswer) => Promise<void>;
+  readonly onViewing: (conditions: ViewingConditions) => Promise<void>;
 }) {
   const { round, grade } = props;
   return (
@@ -88,6 +91,8 @@ function RoundDetail(props: {
           <ImperfectionTable round={grade} />
         </>
       ) : null}
+      <h4>Viewing and lighting</h4>
+      <ViewingPanel round={round} {...(props.latest ? { onSave: props.onViewing } : {})} />
       <h4>Visual checklist</h4>
       {props.latest ? null : (
         <p class="note">An earlier round: its answers are history and cannot be changed here.</p>
@@ -242,6 +247,17 @@ export default function SeamScreen({ id }: { readonly id: string }) {
     void regrade().catch((e: unknown) => setError(errorText(e)));
   };
 
+  const recordViewing = async (conditions: ViewingConditions) => {
+    if (!current) return;
+    const store = await getStore();
+    const updated = await store.recordViewing(id, current.number, conditions);
+    setData((d) =>
+      typeof d === 'object'
+        ? { ...d, rounds: d.rounds.map((r) => (r.number === updated.number ? updated : r)) }
+        : d,
+    );
+  };
+
   /** Saves an engineer's choice of fatigue detail (or clears it) with the seam's set-up, then grades again. */
   const overrideDetail = async (detail: DetailId | null) => {
     if (!seam.fatigue) return;
@@ -368,6 +384,7 @@ export default function SeamScreen({ id }: { readonly id: string }) {
             seamLength={seam.length}
             latest={current.number === latest?.number}
             onAnswer={answer}
+            onViewing={recordViewing}
           />
         ) : (
           <p>No round yet.</p>

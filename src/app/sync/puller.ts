@@ -16,7 +16,7 @@ import type { PullApplied, PulledItem, Store } from '../../store/api.js';
 import type { DeviceVault } from './device-vault.js';
 import { errorText, refusalText, type Transport } from './transport.js';
 
-export type PullerStore = Pick<Store, 'pullCursor' | 'receivePulled' | 'outboxCount'>;
+export type PullerStore = Pick<Store, 'pullCursor' | 'receivePulled' | 'outboxCount' | 'outboxEntries'>;
 
 export type PullOutcome =
   | { readonly kind: 'notEnrolled' }
@@ -96,8 +96,15 @@ export class Puller {
       if (nonceRes.status !== 200) return { kind: 'failed', error: (await refusalText(nonceRes)).text };
       const { nonce } = v.parse(nonceReplySchema, await nonceRes.json());
       const cursor = await store.pullCursor();
+      // What waits here, and since when (device clock), for the supervisor's Devices page.
+      const [oldest] = await store.outboxEntries(1);
       const body = await signPullRequest(
-        { nonce, cursor, queued: await store.outboxCount() },
+        {
+          nonce,
+          cursor,
+          queued: await store.outboxCount(),
+          ...(oldest ? { oldestQueuedAt: oldest.createdAt } : {}),
+        },
         key.privateKey,
         key.kid,
       );

@@ -20,6 +20,7 @@ export type SenderStore = Pick<
   | 'noteAttempt'
   | 'settleBatch'
   | 'releaseBatch'
+  | 'shownGrades'
 >;
 
 export type SenderState =
@@ -201,7 +202,10 @@ export class OutboxSender {
         const entries = await store.unsealedEntries(this.#o.batchSize);
         if (entries.length === 0) break;
         const deviceSeq = await store.nextBatchSeq();
-        const sealed = await sealBatch({ deviceSeq, entries }, key.privateKey, key.kid);
+        // The grades this tablet showed for the batch's seams travel with it, so the review can set them beside
+        // the server's own (protocol 1's optional deviceGrades: a server that keeps none ignores nothing else).
+        const deviceGrades = await store.shownGrades(entries.map((e) => e.seamId));
+        const sealed = await sealBatch({ deviceSeq, entries, deviceGrades }, key.privateKey, key.kid);
         // Not kept when another tab sealed some of these records first: that batch was never sent; look again.
         await store.keepSealedBatch({
           batchId: sealed.batchId,

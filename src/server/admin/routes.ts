@@ -7,12 +7,20 @@ import { hashPassword } from '../auth/password.js';
 import { newPasswordSchema } from '../auth/routes.js';
 import { requireRole, sameOrigin } from '../auth/session.js';
 import type { AppDeps, AppEnv } from '../deps.js';
-import { readJson } from '../http/body.js';
+import { mediaType, readJson } from '../http/body.js';
 import { HttpError } from '../http/errors.js';
 import { parseInput } from '../http/validate.js';
 import type { Account } from '../storage/types.js';
 import { reviewApiRoutes } from '../review/api-routes.js';
-import { assignSeam, checkSeamSetup, decide, issueEnrolmentCode, putSeam, seamView } from './service.js';
+import {
+  assignSeam,
+  checkSeamSetup,
+  decide,
+  issueEnrolmentCode,
+  putSeam,
+  seamView,
+  tieDevice,
+} from './service.js';
 
 const id = v.pipe(
   v.string('must be a string'),
@@ -27,20 +35,30 @@ const deviceName = v.pipe(
   v.maxLength(80, 'must be at most 80 characters'),
 );
 
+const username = v.pipe(
+  v.string(),
+  v.regex(/^[A-Za-z0-9._-]{1,40}$/, 'may hold 1 to 40 letters, digits, dots, dashes and underscores'),
+);
 const accountInput = v.strictObject({
-  username: v.pipe(
-    v.string(),
-    v.regex(/^[A-Za-z0-9._-]{1,40}$/, 'may hold 1 to 40 letters, digits, dots, dashes and underscores'),
-  ),
+  username,
   password: newPasswordSchema,
   role: v.picklist(['supervisor', 'inspector'], 'must be "supervisor" or "inspector"'),
 });
 const seamInput = v.strictObject({ seam: v.unknown() });
-const assignmentInput = v.strictObject({
-  seamId: id,
-  deviceKid: kid,
-  note: v.optional(v.pipe(v.string(), v.maxLength(500))),
-});
+const assignmentInput = v.pipe(
+  v.strictObject({
+    seamId: id,
+    deviceKid: v.optional(kid),
+    inspector: v.optional(username),
+    note: v.optional(v.pipe(v.string(), v.maxLength(500))),
+  }),
+  v.check(
+    (i) => (i.deviceKid === undefined) !== (i.inspector === undefined),
+    'name either deviceKid (a tablet) or inspector (an inspector account), not both',
+  ),
+);
+const codeInput = v.strictObject({ inspector: v.optional(v.nullable(username)) });
+const tieInput = v.strictObject({ inspector: v.nullable(username) });
 const decisionInput = v.strictObject({
   seamId: id,
   round: v.pipe(v.number(), v.integer(), v.minValue(1), v.maxValue(999)),
@@ -62,9 +80,20 @@ export function adminRoutes(deps: AppDeps): Hono<AppEnv> {
 
   app.get('/devices', async (c) => c.json(await deps.storage.listDevices()));
 
-  app.post('/enrolment-codes', async (c) =>
-    c.json(await issueEnrolmentCode(deps, who(c.get('account'))), 201),
-  );
+  app.post('/enrolment-codes', async (c) => {
+    // An empty body asks for a code for a device that works for no inspector in particular.
+    const { inspector } =
+      mediaType(c) === null ? { inspector: null } : parseInput(codeInput, await readJson(c, max));
+    return c.json(await issueEnrolmentCode(deps, who(c.get('account')), inspector ?? null), 201);
+  });
+
+  app.get('/inspectors', async (c) => c.json(await deps.storage.listAccounts('inspector')));
+
+  app.put('/devices/:kid/inspector', async (c) => {
+    const { inspector } = parseInput(tieInput, await readJson(c, max));
+    await tieDevice(deps, who(c.get('account')), c.req.param('kid'), inspector);
+    return c.json(await deps.storage.getDevice(c.req.param('kid')));
+  });
 
   app.patch('/devices/:kid', async (c) => {
     const { name } = parseInput(renameInput, await readJson(c, max));
@@ -126,7 +155,16 @@ export function adminRoutes(deps: AppDeps): Hono<AppEnv> {
 
   app.post('/assignments', async (c) => {
     const input = parseInput(assignmentInput, await readJson(c, max));
-    return c.json(await assignSeam(deps, who(c.get('account')), input), 201);
+    const target =
+      input.deviceKid !== undefined ? { deviceKid: input.deviceKid } : { inspector: input.inspector ?? '' };
+    return c.json(
+      await assignSeam(deps, who(c.get('account')), {
+        seamId: input.seamId,
+        ...target,
+        ...(input.note !== undefined ? { note: input.note } : {}),
+      }),
+      201,
+    );
   });
 
   app.post('/decisions', async (c) => {

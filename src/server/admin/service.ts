@@ -14,9 +14,17 @@ export interface IssuedCode {
   readonly ticket: string;
   readonly expiresAt: string;
   readonly serverKid: string;
+  /** The inspector the enrolled device will work for. */
+  readonly inspector: string | null;
 }
 
-export async function issueEnrolmentCode(deps: AppDeps, by: Account): Promise<IssuedCode> {
+/** A one-time code; a device enrolled with it works for the inspector named, when one is. */
+export async function issueEnrolmentCode(
+  deps: AppDeps,
+  by: Account,
+  inspector: string | null = null,
+): Promise<IssuedCode> {
+  const account = inspector === null ? null : await inspectorAccount(deps, inspector);
   const code = newEnrolmentCode();
   const now = deps.now();
   const expiresAt = new Date(now.getTime() + deps.config.enrolmentCodeMinutes * 60_000).toISOString();
@@ -25,9 +33,11 @@ export async function issueEnrolmentCode(deps: AppDeps, by: Account): Promise<Is
     createdBy: by.id,
     createdAt: now.toISOString(),
     expiresAt,
+    inspectorId: account?.id ?? null,
   });
-  deps.log.info('enrolmentCodeIssued', { by: by.username, expiresAt });
+  deps.log.info('enrolmentCodeIssued', { by: by.username, expiresAt, inspector: account?.username ?? null });
   return {
+    inspector: account?.username ?? null,
     code,
     ticket: formatEnrolmentTicket({ code, serverKid: deps.serverKey.kid }),
     expiresAt,
@@ -82,14 +92,41 @@ async function currentSetup(deps: AppDeps, seamId: string): Promise<Seam> {
   return seam;
 }
 
+/** Who a seam is assigned to: one tablet, or an inspector account (every device tied to it pulls the seam). */
+export type AssignTarget =
+  | { readonly deviceKid: string; readonly inspector?: undefined }
+  | { readonly inspector: string; readonly deviceKid?: undefined };
+
+/** The inspector account named, or a 4xx saying why it cannot be assigned to. */
+export async function inspectorAccount(deps: AppDeps, username: string): Promise<Account> {
+  const account = await deps.storage.findAccount(username);
+  if (!account) throw new HttpError(404, 'unknownInspector', `no account is named "${username}"`);
+  if (account.role !== 'inspector')
+    throw new HttpError(409, 'notInspector', `the account "${username}" is not an inspector's`);
+  return {
+    id: account.id,
+    username: account.username,
+    role: account.role,
+    mustChangePassword: account.mustChangePassword,
+    createdAt: account.createdAt,
+  };
+}
+
 export async function assignSeam(
   deps: AppDeps,
   by: Account,
-  input: { seamId: string; deviceKid: string; note?: string | undefined },
+  input: AssignTarget & { seamId: string; note?: string | undefined },
 ): Promise<{ id: string; seq: number }> {
-  const device = await deps.storage.getDevice(input.deviceKid);
-  if (!device) throw new HttpError(404, 'unknownDevice', 'no device is enrolled with this kid');
-  if (device.revokedAt !== null) throw new HttpError(409, 'revoked', 'this device is revoked');
+  let deviceKid: string | null = null;
+  let inspector: Account | null = null;
+  if (input.deviceKid !== undefined) {
+    const device = await deps.storage.getDevice(input.deviceKid);
+    if (!device) throw new HttpError(404, 'unknownDevice', 'no device is enrolled with this kid');
+    if (device.revokedAt !== null) throw new HttpError(409, 'revoked', 'this device is revoked');
+    deviceKid = device.kid;
+  } else {
+    inspector = await inspectorAccount(deps, input.inspector);
+  }
   const seam = await currentSetup(deps, input.seamId);
   const id = randomUuid();
   const now = deps.now().toISOString();
@@ -105,13 +142,49 @@ export async function assignSeam(
     kind: 'assignment',
     itemId: id,
     seamId: input.seamId,
-    deviceKid: device.kid,
+    deviceKid,
+    inspectorId: inspector?.id ?? null,
     item: canonicalJson(item),
     createdAt: now,
     createdBy: by.id,
   });
-  deps.log.info('assigned', { by: by.username, seamId: input.seamId, kid: device.kid });
+  deps.log.info('assigned', {
+    by: by.username,
+    seamId: input.seamId,
+    ...(deviceKid ? { kid: deviceKid } : { inspector: inspector?.username }),
+  });
   return { id, seq: change.seq };
+}
+
+/**
+ * Ties a device to an inspector account (null: to none). Seams assigned to the inspector before now are sent to
+ * the device as assignments of its own, carrying the same set-up and note, so it receives them whatever its cursor.
+ */
+export async function tieDevice(
+  deps: AppDeps,
+  by: Account,
+  kid: string,
+  inspector: string | null,
+): Promise<void> {
+  const account = inspector === null ? null : await inspectorAccount(deps, inspector);
+  const device = await deps.storage.getDevice(kid);
+  if (!device) throw new HttpError(404, 'unknownDevice', 'no such device');
+  if (device.revokedAt !== null) throw new HttpError(409, 'revoked', 'this device is revoked');
+  const now = deps.now().toISOString();
+  await deps.storage.tieDevice(kid, account?.id ?? null, (assignment) => {
+    const id = randomUuid();
+    const item = { ...(JSON.parse(assignment.item) as Record<string, unknown>), id };
+    return {
+      kind: 'assignment',
+      itemId: id,
+      seamId: assignment.seamId,
+      deviceKid: kid,
+      item: canonicalJson(item),
+      createdAt: now,
+      createdBy: by.id,
+    };
+  });
+  deps.log.info('deviceTied', { by: by.username, kid, inspector: account?.username ?? null });
 }
 
 /** A review decision (see review/decisions.ts): the id, and the change number devices pull it under. */

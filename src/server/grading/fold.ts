@@ -4,6 +4,7 @@
 import { SEAM_FILE_FORMAT, type Reading, type Round, type Seam } from '../../domain/index.js';
 import type { RecordBodies } from '../../protocol/index.js';
 import type { GradeMaterial, GradeRecord } from '../storage/types.js';
+import type { ViewingConditions } from '../../domain/model/viewing.js';
 
 export interface LeftOut {
   readonly recordId: string;
@@ -17,6 +18,18 @@ export interface FoldedSeam {
   readonly rounds: Round[];
   readonly readings: { readonly recordId: string; readonly reading: Reading }[];
   readonly leftOut: LeftOut[];
+  /** Per round, the viewing and lighting conditions in force (the latest record for the round). */
+  readonly viewing: readonly RoundViewing[];
+}
+
+export interface RoundViewing {
+  readonly round: number;
+  readonly conditions: ViewingConditions;
+  /** By the device clock: shown, never used for order. */
+  readonly recordedAt: string;
+  readonly recordId: string;
+  /** How many records the round's conditions were given in (more than one: corrected). */
+  readonly records: number;
 }
 
 function bodyOf<K extends keyof RecordBodies>(r: GradeRecord): RecordBodies[K] {
@@ -34,6 +47,7 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
   let setup: { revision: number; receiveSeq: number; seam: Seam } | null = null;
   const rounds = new Map<number, { receiveSeq: number; round: Round }>();
   const answers = new Map<string, GradeRecord[]>();
+  const viewings = new Map<number, GradeRecord[]>();
   const readings: { recordId: string; reading: Reading }[] = [];
 
   for (const r of material.records) {
@@ -84,6 +98,12 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
       case 'reading':
         readings.push({ recordId: r.id, reading: held?.get(r.id) ?? bodyOf<'reading'>(r).reading });
         break;
+      case 'viewing': {
+        // Not graded: the conditions are reported. A correction is a later record for the same round.
+        const body = bodyOf<'viewing'>(r);
+        viewings.set(body.round, [...(viewings.get(body.round) ?? []), r]);
+        break;
+      }
       case 'tagLink':
         // Which tag leads to the seam: kept as a record, nothing to grade and nothing left out.
         break;
@@ -106,6 +126,20 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
     round.round = { ...round.round, checklist: { ...round.round.checklist, [body.item]: body.answer } };
   }
 
+  const viewing: RoundViewing[] = [];
+  for (const [round, candidates] of viewings) {
+    const winner = latestAnswer(candidates);
+    const body = bodyOf<'viewing'>(winner);
+    viewing.push({
+      round,
+      conditions: body.conditions,
+      recordedAt: body.recordedAt,
+      recordId: winner.id,
+      records: candidates.length,
+    });
+  }
+  viewing.sort((a, b) => a.round - b.round);
+
   const seam =
     (setup as { seam: Seam } | null)?.seam ??
     (material.seam ? (JSON.parse(material.seam.setup) as Seam) : null);
@@ -117,11 +151,12 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
       a.reading.id < b.reading.id ? -1 : a.reading.id > b.reading.id ? 1 : 0,
     ),
     leftOut,
+    viewing,
   };
 }
 
 /**
- * One device's answers are ordered by its sequence numbers (its clock may be wrong); between devices, the answer
+ * The answer (or viewing record) that counts. One device's answers are ordered by its sequence numbers (its clock may be wrong); between devices, the answer
  * received last counts.
  */
 function latestAnswer(candidates: readonly GradeRecord[]): GradeRecord {

@@ -25,6 +25,20 @@ export function requireMediaType(c: Context, allowed: readonly string[]): string
 const decoder = new TextDecoder('utf-8', { fatal: true });
 
 export async function readText(c: Context, allowed: readonly string[], maxBytes: number): Promise<string> {
+  const bytes = await readBytes(c, allowed, maxBytes);
+  try {
+    return decoder.decode(bytes);
+  } catch {
+    throw new HttpError(400, 'malformed', 'the body is not UTF-8 text');
+  }
+}
+
+/** The body's bytes, of a media type the route takes and within its cap. */
+export async function readBytes(
+  c: Context,
+  allowed: readonly string[],
+  maxBytes: number,
+): Promise<Uint8Array> {
   requireMediaType(c, allowed);
   const tooLarge = () =>
     new HttpError(413, 'tooLarge', `the body is larger than ${maxBytes} bytes, the most this request takes`);
@@ -34,7 +48,7 @@ export async function readText(c: Context, allowed: readonly string[], maxBytes:
     throw tooLarge();
   }
   const stream = c.req.raw.body;
-  if (!stream) return '';
+  if (!stream) return new Uint8Array(0);
   const chunks: Uint8Array[] = [];
   let size = 0;
   const reader = stream.getReader();
@@ -54,11 +68,7 @@ export async function readText(c: Context, allowed: readonly string[], maxBytes:
     bytes.set(chunk, at);
     at += chunk.byteLength;
   }
-  try {
-    return decoder.decode(bytes);
-  } catch {
-    throw new HttpError(400, 'malformed', 'the body is not UTF-8 text');
-  }
+  return bytes;
 }
 
 export async function readJson(c: Context, maxBytes: number): Promise<unknown> {
@@ -72,4 +82,24 @@ export async function readJson(c: Context, maxBytes: number): Promise<unknown> {
 
 export async function readForm(c: Context, maxBytes: number): Promise<URLSearchParams> {
   return new URLSearchParams(await readText(c, ['application/x-www-form-urlencoded'], maxBytes));
+}
+
+/**
+ * A form posted as multipart/form-data (a file upload) or url-encoded, within the cap. Files come back as File
+ * objects; a malformed multipart body is a 400.
+ */
+export async function readFormData(c: Context, maxBytes: number): Promise<FormData> {
+  const type = mediaType(c);
+  const bytes = await readBytes(c, ['multipart/form-data', 'application/x-www-form-urlencoded'], maxBytes);
+  try {
+    return await new Response(bytes, {
+      headers: { 'content-type': c.req.header('content-type') ?? '' },
+    }).formData();
+  } catch {
+    throw new HttpError(
+      400,
+      'malformed',
+      `the ${type === 'multipart/form-data' ? 'upload' : 'form'} could not be read`,
+    );
+  }
 }

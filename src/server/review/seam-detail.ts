@@ -87,6 +87,8 @@ export interface AssignmentLine {
   readonly id: string;
   readonly deviceKid: string | null;
   readonly deviceName: string | null;
+  /** The inspector account the seam was assigned to (every tablet working for that inspector pulls it). */
+  readonly inspector: string | null;
   readonly note: string | null;
   readonly assignedBy: string | null;
   readonly assignedAt: string;
@@ -239,7 +241,11 @@ function deviceGradeLines(rows: readonly DeviceGradeRow[], devices: ReadonlyMap<
   });
 }
 
-function assignmentLines(changes: readonly ChangeRow[], devices: ReadonlyMap<string, Device>) {
+function assignmentLines(
+  changes: readonly ChangeRow[],
+  devices: ReadonlyMap<string, Device>,
+  inspectors: ReadonlyMap<number, string>,
+) {
   return changes
     .filter((c) => c.kind === 'assignment')
     .map((c): AssignmentLine => {
@@ -248,6 +254,7 @@ function assignmentLines(changes: readonly ChangeRow[], devices: ReadonlyMap<str
         id: c.itemId,
         deviceKid: c.deviceKid,
         deviceName: c.deviceKid ? (devices.get(c.deviceKid)?.name ?? null) : null,
+        inspector: c.inspectorId !== null ? (inspectors.get(c.inspectorId) ?? null) : null,
         note: item.note ?? null,
         assignedBy: item.assignedBy ?? null,
         assignedAt: c.createdAt,
@@ -261,16 +268,18 @@ export async function seamDetail(
   options: { readonly sensitivity: boolean } = { sensitivity: true },
 ): Promise<SeamDetail> {
   const s = deps.storage;
-  const [row, material, grade, deviceGrades, batches, decisions, changes, deviceList] = await Promise.all([
-    s.getSeam(seamId),
-    s.seamMaterial(seamId),
-    s.getServerGrade(seamId),
-    s.listDeviceGrades(seamId),
-    s.batchesOfSeam(seamId),
-    s.listDecisions(seamId),
-    s.listChangesOfSeam(seamId),
-    s.listDevices(),
-  ]);
+  const [row, material, grade, deviceGrades, batches, decisions, changes, deviceList, inspectorList] =
+    await Promise.all([
+      s.getSeam(seamId),
+      s.seamMaterial(seamId),
+      s.getServerGrade(seamId),
+      s.listDeviceGrades(seamId),
+      s.batchesOfSeam(seamId),
+      s.listDecisions(seamId),
+      s.listChangesOfSeam(seamId),
+      s.listDevices(),
+      s.listAccounts('inspector'),
+    ]);
   if (!row && material.records.length === 0) {
     throw new HttpError(404, 'unknownSeam', `no seam "${seamId}" is known to this server`);
   }
@@ -290,7 +299,7 @@ export async function seamDetail(
     mismatch: gradesDiffer(review.summary.levelMet, latest),
     batches: batches.map((b) => checkBatch(b, devices.get(b.deviceKid))),
     decisions: decisions.map((d) => ({ ...d, verified: checkDecision(deps, d) })),
-    assignments: assignmentLines(changes, devices),
+    assignments: assignmentLines(changes, devices, new Map(inspectorList.map((a) => [a.id, a.username]))),
     changes,
     latestRecordSeq: material.records.reduce((n, r) => Math.max(n, r.receiveSeq), 0),
     devices,

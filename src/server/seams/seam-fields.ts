@@ -93,21 +93,57 @@ export function seamFromValues(values: SeamValues, newId: () => string = randomU
 export interface ParsedList {
   readonly headers: readonly string[];
   readonly rows: readonly Record<string, string>[];
-  readonly problems: readonly string[];
+  /** The line of the file each row starts on (1 is the header), so a problem names the line to look at. */
+  readonly lines: readonly number[];
+  readonly problems: readonly { readonly line: number; readonly message: string }[];
 }
 
-/** Reads a seam list: a header row, then one seam per row. */
+/** Reads a seam list: a header row, then one seam per row (a quoted value may span lines). */
 export function parseSeamList(csv: string): ParsedList {
-  const result = Papa.parse<Record<string, string>>(csv.replace(/^\uFEFF/, ''), {
-    header: true,
-    skipEmptyLines: 'greedy',
-    transformHeader: (h) => h.trim(),
-  });
-  return {
-    headers: (result.meta.fields ?? []).filter((h) => h !== ''),
-    rows: result.data,
-    problems: result.errors.map((e) => `row ${(e.row ?? 0) + 2}: ${e.message}`),
+  const text = csv.replace(/^\uFEFF/, '');
+  const rows: Record<string, string>[] = [];
+  const lines: number[] = [];
+  const problems: { line: number; message: string }[] = [];
+  let headers: string[] | null = null;
+  // Lines are counted incrementally up to where each row starts (papaparse reports where the last one ended).
+  let counted = 0;
+  let line = 1;
+  let rowStart = 0;
+  const lineAt = (index: number) => {
+    for (; counted < index; counted++) if (text.charCodeAt(counted) === 10) line++;
+    return line;
   };
+  Papa.parse<string[]>(text, {
+    skipEmptyLines: 'greedy',
+    step: (result) => {
+      let start = rowStart;
+      // Blank lines before the row are skipped by the parser; the row starts at its first character.
+      while (start < text.length && /[\r\n]/.test(text.charAt(start))) start++;
+      const at = lineAt(start);
+      rowStart = result.meta.cursor;
+      for (const e of result.errors) problems.push({ line: at, message: e.message });
+      const cells = result.data;
+      if (headers === null) {
+        headers = cells.map((h) => h.trim());
+        const seen = new Set<string>();
+        for (const h of headers) {
+          if (h !== '' && seen.has(h))
+            problems.push({ line: at, message: `the column "${h}" is named twice` });
+          seen.add(h);
+        }
+        return;
+      }
+      const named = headers;
+      if (cells.length > named.length && cells.slice(named.length).some((c) => c.trim() !== ''))
+        problems.push({
+          line: at,
+          message: `${cells.length} values where the header names ${named.length} columns`,
+        });
+      rows.push(Object.fromEntries(named.map((h, i) => [h, cells[i] ?? ''])));
+      lines.push(at);
+    },
+  });
+  return { headers: (headers ?? ([] as string[])).filter((h) => h !== ''), rows, lines, problems };
 }
 
 const squash = (text: string) => text.toLowerCase().replace(/[^a-z0-9]/g, '');

@@ -45,6 +45,9 @@ export interface Device {
   readonly reportedQueue: number | null;
   readonly reportedOldestAt: string | null;
   readonly reportedAt: string | null;
+  /** The inspector account the device works for (named by a supervisor): it pulls that inspector's seams. */
+  readonly inspectorId: number | null;
+  readonly inspectorName: string | null;
 }
 
 export interface EnrolmentCodeRow {
@@ -52,6 +55,8 @@ export interface EnrolmentCodeRow {
   readonly createdBy: number;
   readonly createdAt: string;
   readonly expiresAt: string;
+  /** The inspector account a device enrolled with this code works for. */
+  readonly inspectorId?: number | null;
 }
 
 export interface EnrolAttempt {
@@ -207,6 +212,8 @@ export interface ChangeRow {
   readonly seamId: string;
   /** The device an assignment is for; null for a decision (it goes to every device that worked on the seam). */
   readonly deviceKid: string | null;
+  /** The inspector account an assignment is for (device_kid null): every device tied to it pulls it. */
+  readonly inspectorId: number | null;
   readonly item: string;
   readonly createdAt: string;
 }
@@ -216,6 +223,7 @@ export interface NewChange {
   readonly itemId: string;
   readonly seamId: string;
   readonly deviceKid: string | null;
+  readonly inspectorId?: number | null;
   readonly item: string;
   readonly createdAt: string;
   readonly createdBy: number | null;
@@ -401,6 +409,8 @@ export interface Storage {
   countAccounts(): Promise<number>;
   createAccount(account: NewAccount): Promise<Account>;
   findAccount(username: string): Promise<AccountWithHash | undefined>;
+  /** Accounts of the role, by name. */
+  listAccounts(role: Role): Promise<Account[]>;
   setPassword(accountId: number, passwordHash: string, mustChangePassword: boolean): Promise<void>;
   createSession(tokenHash: string, accountId: number, createdAt: string, expiresAt: string): Promise<void>;
   /** The account of an unexpired session. */
@@ -423,6 +433,16 @@ export interface Storage {
   renameDevice(kid: string, name: string): Promise<boolean>;
   revokeDevice(kid: string, at: string): Promise<boolean>;
   touchDevice(kid: string, at: string, report?: { queued: number; oldestAt: string | null }): Promise<void>;
+  /**
+   * Ties the device to an inspector account (or to none), in one transaction: the inspector's assignments made
+   * so far are added as changes addressed to the device (made by `copy` from each seam's newest one), so a
+   * device that pulled before still receives them. False when there is no such device.
+   */
+  tieDevice(
+    kid: string,
+    inspectorId: number | null,
+    copy: (assignment: ChangeRow) => NewChange,
+  ): Promise<boolean>;
 
   // Pull nonces: issued, then accepted once before they expire
   issueNonce(nonce: string, expiresAt: string): Promise<void>;
@@ -468,6 +488,9 @@ export interface Storage {
     afterSeq: number,
     limit: number,
   ): Promise<{ changes: ChangeRow[]; through: number; more: boolean }>;
+
+  /** Seams ever assigned to the device, or to the inspector account, by id. */
+  assignedSeams(target: { readonly deviceKid: string } | { readonly inspectorId: number }): Promise<string[]>;
 
   // Review (decisions, facts for the queue)
   /** The newest receive sequence number among the seam's records (0 when it has none). */

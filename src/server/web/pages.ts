@@ -1,6 +1,6 @@
 // The supervisor's pages: the shared layout, sign-in, password and Devices (enrolment code, rename, revoke, last
 // contact, queue). The review and Seams pages are in review/ and seams-page.ts. Plain HTML forms; no inline script.
-import type { Device } from '../storage/types.js';
+import type { Account, Device } from '../storage/types.js';
 import { html, type Html } from './html.js';
 import { qrSvg } from './qr.js';
 import type { IssuedCode } from '../admin/service.js';
@@ -81,7 +81,25 @@ export function passwordPage(user: string, mustChange: boolean, error: string | 
 export const when = (iso: string | null): string =>
   iso === null ? 'never' : iso.replace('T', ' ').replace(/\.\d+Z$/, ' UTC');
 
-function deviceRow(d: Device): Html {
+/** A choice of inspector account; "" stands for none. */
+export const inspectorSelect = (
+  inspectors: readonly Account[],
+  name: string,
+  selected: string | null,
+  none: string,
+  label?: string,
+): Html =>
+  html`<select name="${name}" ${label ? html`aria-label="${label}"` : ''}>
+    <option value="">${none}</option>
+    ${inspectors.map(
+      (i) =>
+        html`<option value="${i.username}" ${selected === i.username ? html`selected` : ''}>
+          ${i.username}
+        </option>`,
+    )}
+  </select>`;
+
+function deviceRow(d: Device, inspectors: readonly Account[]): Html {
   const revoked = d.revokedAt !== null;
   return html`<tr>
     <td>
@@ -89,6 +107,16 @@ function deviceRow(d: Device): Html {
         class="kid"
         >${d.kid}</span
       >
+    </td>
+    <td>
+      ${
+        revoked
+          ? (d.inspectorName ?? '—')
+          : html`<form method="post" action="/supervisor/devices/${encodeURIComponent(d.kid)}/inspector">
+              ${inspectorSelect(inspectors, 'inspector', d.inspectorName, 'no inspector', `Inspector of ${d.name}`)}
+              <button type="submit">Set</button>
+            </form>`
+      }
     </td>
     <td>${when(d.enrolledAt)}</td>
     <td>${when(d.lastContactAt)}</td>
@@ -127,6 +155,7 @@ export function devicesPage(
   devices: readonly Device[],
   code: IssuedCode | null,
   notice: string | null,
+  inspectors: readonly Account[] = [],
 ): string {
   return layout(
     'Devices',
@@ -142,20 +171,48 @@ export function devicesPage(
                 </p>
                 <p class="code">${code.code}</p>
                 ${qrSvg(code.ticket)}
-                <p>Server key: <span class="kid">${code.serverKid}</span></p>`
+                <p>Server key: <span class="kid">${code.serverKid}</span></p>
+                <p>
+                  ${code.inspector ? html`The tablet will work for inspector <strong>${code.inspector}</strong>.` : 'The tablet will work for no inspector in particular.'}
+                </p>`
             : html`<p>
                 Show a one-time enrolment code for a new tablet (or for one whose storage was wiped: it enrols
                 as a new device).
               </p>`
         }
         <form method="post" action="/supervisor/devices/code">
+          <label
+            >For inspector
+            ${inspectorSelect(inspectors, 'inspector', code?.inspector ?? null, 'nobody in particular')}</label
+          >
           <button type="submit">${code ? 'New code' : 'Show an enrolment code'}</button>
+        </form>
+      </section>
+      <section class="panel" aria-labelledby="inspectors-title">
+        <h2 id="inspectors-title">Inspectors</h2>
+        <p>
+          Seams can be assigned to an inspector instead of one tablet: every tablet that works for the
+          inspector (chosen below, or when its enrolment code is shown) receives them on its next sync.
+        </p>
+        <p>
+          ${inspectors.length ? inspectors.map((i) => i.username).join(', ') : 'No inspector account yet.'}
+        </p>
+        <form method="post" action="/supervisor/inspectors">
+          <label
+            >Name <input type="text" name="username" required maxlength="40" pattern="[A-Za-z0-9._-]{1,40}"
+          /></label>
+          <label
+            >Password (at least 10 characters)
+            <input type="password" name="password" required minlength="10" autocomplete="new-password"
+          /></label>
+          <button type="submit">Add the inspector</button>
         </form>
       </section>
       <table>
         <thead>
           <tr>
             <th>Device</th>
+            <th>Inspector</th>
             <th>Enrolled</th>
             <th>Last contact</th>
             <th>Outbox</th>
@@ -165,9 +222,9 @@ export function devicesPage(
         <tbody>
           ${
             devices.length
-              ? devices.map(deviceRow)
+              ? devices.map((d) => deviceRow(d, inspectors))
               : html`<tr>
-                  <td colspan="5">No device is enrolled yet.</td>
+                  <td colspan="6">No device is enrolled yet.</td>
                 </tr>`
           }
         </tbody>

@@ -1,26 +1,38 @@
 // The Seams page: set up a seam, import a seam list (CSV with a column mapping), and assign seams to tablets, which
 // receive them, signed by the server key, on their next sync.
-import type { Device, ReviewQueueRow } from '../storage/types.js';
-import { SEAM_FIELDS, type SeamField } from '../seams/seam-fields.js';
+import type { Account, Device, ReviewQueueRow } from '../storage/types.js';
+import { SEAM_FIELDS } from '../seams/seam-fields.js';
 import type { RowProblem } from '../seams/service.js';
 import { html, type Html } from './html.js';
-import { layout } from './pages.js';
+import { inspectorSelect, layout } from './pages.js';
 import { demoBadge, level } from './review/parts.js';
 
-const deviceSelect = (devices: readonly Device[], name = 'device', optional = true): Html =>
-  html`<select name="${name}" ${optional ? '' : html`required`}>
-    ${optional ? html`<option value="">no tablet yet</option>` : html`<option value="">choose a tablet</option>`}
+const deviceSelect = (devices: readonly Device[]): Html =>
+  html`<select name="device">
+    <option value="">no tablet</option>
     ${devices
       .filter((d) => d.revokedAt === null)
       .map((d) => html`<option value="${d.kid}">${d.name}</option>`)}
   </select>`;
+
+/** The tablet and inspector choices of an assignment: one or the other. */
+export const assignChoice = (
+  devices: readonly Device[],
+  inspectors: readonly Account[],
+  what: string,
+): Html =>
+  html`<fieldset class="assign-to">
+    <legend>${what}</legend>
+    <label>Tablet ${deviceSelect(devices)}</label>
+    <label>or inspector ${inspectorSelect(inspectors, 'inspector', null, 'no inspector')}</label>
+  </fieldset>`;
 
 export const problemList = (problems: readonly RowProblem[]): Html =>
   problems.length
     ? html`<div class="error" role="alert">
         <p>Nothing was kept. Put these right and try again:</p>
         <ul>
-          ${problems.map((p) => html`<li>${p.row ? `Row ${p.row}: ` : ''}${p.message}</li>`)}
+          ${problems.map((p) => html`<li>${p.line ? `Line ${p.line}: ` : ''}${p.message}</li>`)}
         </ul>
       </div>`
     : html``;
@@ -30,6 +42,7 @@ export function seamsPage(input: {
   readonly seams: readonly ReviewQueueRow[];
   readonly total: number;
   readonly devices: readonly Device[];
+  readonly inspectors: readonly Account[];
   readonly notice?: string | null;
   readonly problems?: readonly RowProblem[];
 }): string {
@@ -39,7 +52,10 @@ export function seamsPage(input: {
       ${input.notice ? html`<p class="notice" role="status">${input.notice}</p>` : ''}
       ${problemList(input.problems ?? [])}
       <section class="panel" aria-labelledby="assign-title">
-        <h2 id="assign-title">Assign seams to a tablet</h2>
+        <h2 id="assign-title">Assign seams to a tablet or an inspector</h2>
+        <p class="muted">
+          Seams assigned to an inspector reach every tablet that works for that inspector (see Devices).
+        </p>
         <form method="post" action="/supervisor/seams/assign">
           <table>
             <thead>
@@ -83,9 +99,12 @@ export function seamsPage(input: {
               ? html`<p class="muted">The first ${input.seams.length} of ${input.total} seams by label.</p>`
               : ''
           }
-          <label>Tablet ${deviceSelect(input.devices, 'device', false)}</label>
+          ${assignChoice(input.devices, input.inspectors, 'Assign the ticked seams to')}
           <label>Note for the inspector <input type="text" name="note" maxlength="500" /></label>
           <button type="submit">Assign</button>
+          <button type="submit" formaction="/supervisor/seams/tags" formmethod="get" class="secondary">
+            Print the tag sheet of the ticked seams (or of those assigned to the tablet or inspector chosen)
+          </button>
         </form>
       </section>
       <section class="panel" aria-labelledby="new-title">
@@ -100,79 +119,25 @@ export function seamsPage(input: {
                 /></label>`,
             )}
           </div>
-          <label>Assign to ${deviceSelect(input.devices)}</label>
+          ${assignChoice(input.devices, input.inspectors, 'Assign it to (optional)')}
           <button type="submit">Set up the seam</button>
         </form>
       </section>
       <section class="panel" aria-labelledby="import-title">
         <h2 id="import-title">Import a seam list (CSV)</h2>
         <p>
-          Paste the list with a header row; the next step maps its columns to the seam's fields. Every row is
-          checked, and nothing is kept unless every row is sound.
+          Choose a CSV file, or paste the list, with a header row. The next steps map its columns to the
+          seam's fields and check every row, naming the line and the reason of each problem, before anything
+          is kept.
         </p>
-        <form method="post" action="/supervisor/seams/import/map">
-          <label>Seam list (CSV) <textarea name="csv" rows="8" required></textarea></label>
+        <form method="post" action="/supervisor/seams/import/map" enctype="multipart/form-data">
+          <label
+            >Seam list file (CSV) <input type="file" name="file" accept=".csv,.txt,text/csv,text/plain"
+          /></label>
+          <label>or paste it here <textarea name="csv" rows="6"></textarea></label>
           <button type="submit">Next: map the columns</button>
         </form>
       </section>`,
-    input.user,
-    { bodyClass: 'wide' },
-  );
-}
-
-export function mappingPage(input: {
-  readonly user: string;
-  readonly csv: string;
-  readonly headers: readonly string[];
-  readonly rows: readonly Record<string, string>[];
-  readonly guess: Partial<Record<SeamField, string>>;
-  readonly devices: readonly Device[];
-  readonly problems?: readonly RowProblem[];
-}): string {
-  const preview = input.rows.slice(0, 5);
-  return layout(
-    'Map the seam list',
-    html`<p><a href="/supervisor/seams">← Seams</a></p>
-      <h1>Map the seam list's columns</h1>
-      ${problemList(input.problems ?? [])}
-      <p>${input.rows.length} row${input.rows.length === 1 ? '' : 's'} read. The first rows:</p>
-      <table>
-        <thead>
-          <tr>
-            ${input.headers.map((h) => html`<th scope="col">${h}</th>`)}
-          </tr>
-        </thead>
-        <tbody>
-          ${preview.map(
-            (r) =>
-              html`<tr>
-                ${input.headers.map((h) => html`<td>${r[h] ?? ''}</td>`)}
-              </tr>`,
-          )}
-        </tbody>
-      </table>
-      <form method="post" action="/supervisor/seams/import">
-        <textarea name="csv" hidden>${input.csv}</textarea>
-        <div class="columns">
-          ${SEAM_FIELDS.map(
-            (f) =>
-              html`<label
-                >${f.label}${f.required ? ' *' : ''}
-                <select name="map.${f.key}">
-                  <option value="">${f.required ? 'choose a column' : 'not in the list'}</option>
-                  ${input.headers.map(
-                    (h) =>
-                      html`<option value="${h}" ${input.guess[f.key] === h ? html`selected` : ''}>
-                        ${h}
-                      </option>`,
-                  )}
-                </select></label
-              >`,
-          )}
-        </div>
-        <label>Assign every imported seam to ${deviceSelect(input.devices)}</label>
-        <button type="submit">Import the seams</button>
-      </form>`,
     input.user,
     { bodyClass: 'wide' },
   );

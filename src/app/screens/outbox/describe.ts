@@ -59,6 +59,7 @@ const KIND_NAMES: Record<string, string> = {
   checklistAnswer: 'Checklist answer',
   reading: 'Reading',
   tagLink: 'Tag link',
+  viewing: 'Viewing conditions',
 };
 
 export const kindName = (kind: string): string => KIND_NAMES[kind] ?? kind;

@@ -7,6 +7,7 @@ export interface ChangeDbRow {
   item_id: string;
   seam_id: string;
   device_kid: string | null;
+  inspector_id: number | null;
   item: string;
   created_at: string;
 }
@@ -17,6 +18,7 @@ export const toChange = (r: ChangeDbRow): ChangeRow => ({
   itemId: r.item_id,
   seamId: r.seam_id,
   deviceKid: r.device_kid,
+  inspectorId: r.inspector_id,
   item: r.item,
   createdAt: r.created_at,
 });

@@ -250,4 +250,20 @@ CREATE TABLE review_inspectors (
 CREATE INDEX review_inspectors_by_name ON review_inspectors (name, seam_id);
 `,
   },
+  {
+    version: 4,
+    name: 'assignments to inspectors: devices tied to an inspector account',
+    sql: `
+-- A device may be tied to an inspector account (named by the supervisor at enrolment or on the Devices page);
+-- it then pulls the seams assigned to that inspector. inspector_from_seq is the change number at the moment of
+-- tying: the inspector's assignments up to it reach the device as copies addressed to it (see tieDevice), those
+-- after it through the inspector.
+ALTER TABLE devices ADD COLUMN inspector_id INTEGER REFERENCES accounts (id);
+ALTER TABLE devices ADD COLUMN inspector_from_seq INTEGER NOT NULL DEFAULT 0;
+ALTER TABLE enrolment_codes ADD COLUMN inspector_id INTEGER REFERENCES accounts (id);
+-- An assignment to an inspector: device_kid is NULL and inspector_id names the account.
+ALTER TABLE changes ADD COLUMN inspector_id INTEGER REFERENCES accounts (id);
+CREATE INDEX changes_by_inspector ON changes (inspector_id, seq);
+`,
+  },
 ];

@@ -59,6 +59,8 @@ interface DeviceRow {
   reported_queue: number | null;
   reported_oldest_at: string | null;
   reported_at: string | null;
+  inspector_id: number | null;
+  inspector_name: string | null;
 }
 
 interface RecordRow {
@@ -96,6 +98,8 @@ const toDevice = (r: DeviceRow): Device => ({
   reportedQueue: r.reported_queue,
   reportedOldestAt: r.reported_oldest_at,
   reportedAt: r.reported_at,
+  inspectorId: r.inspector_id,
+  inspectorName: r.inspector_name,
 });
 
 const toRecord = (r: RecordRow): StoredRecord => ({
@@ -146,6 +150,7 @@ export class SqliteStorage implements Storage {
       ),
       accountById: p('SELECT * FROM accounts WHERE id = ?'),
       accountByName: p('SELECT * FROM accounts WHERE username = ?'),
+      accountsOfRole: p('SELECT * FROM accounts WHERE role = ? ORDER BY username'),
       setPassword: p('UPDATE accounts SET password_hash = ?, must_change_password = ? WHERE id = ?'),
       insertSession: p(
         'INSERT INTO sessions (token_hash, account_id, created_at, expires_at) VALUES (?, ?, ?, ?)',
@@ -162,15 +167,29 @@ export class SqliteStorage implements Storage {
         'INSERT INTO server_keys (kid, private_jwk, public_jwk, created_at) VALUES (?, ?, ?, ?) ON CONFLICT DO NOTHING',
       ),
       insertCode: p(
-        'INSERT INTO enrolment_codes (code_hash, created_by, created_at, expires_at) VALUES (?, ?, ?, ?)',
+        `INSERT INTO enrolment_codes (code_hash, created_by, created_at, expires_at, inspector_id)
+         VALUES (?, ?, ?, ?, ?)`,
       ),
       codeByHash: p('SELECT * FROM enrolment_codes WHERE code_hash = ?'),
       useCode: p(
         'UPDATE enrolment_codes SET used_at = ?, used_by_kid = ? WHERE code_hash = ? AND used_at IS NULL',
       ),
       deleteOldCodes: p('DELETE FROM enrolment_codes WHERE used_at IS NULL AND expires_at <= ?'),
-      device: p('SELECT * FROM devices WHERE kid = ?'),
-      devices: p('SELECT * FROM devices ORDER BY enrolled_at, kid'),
+      device: p(
+        `SELECT d.*, a.username AS inspector_name FROM devices d LEFT JOIN accounts a ON a.id = d.inspector_id
+         WHERE d.kid = ?`,
+      ),
+      devices: p(
+        `SELECT d.*, a.username AS inspector_name FROM devices d LEFT JOIN accounts a ON a.id = d.inspector_id
+         ORDER BY d.enrolled_at, d.kid`,
+      ),
+      setInspector: p('UPDATE devices SET inspector_id = ?, inspector_from_seq = ? WHERE kid = ?'),
+      // The newest assignment of each seam to the inspector, made up to the given change number.
+      inspectorAssignments: p(
+        `SELECT * FROM changes WHERE seq IN (
+           SELECT max(seq) FROM changes WHERE kind = 'assignment' AND inspector_id = ? AND seq <= ? GROUP BY seam_id)
+         ORDER BY seq`,
+      ),
       insertDevice: p(
         'INSERT INTO devices (kid, public_jwk, name, enrolled_at, last_contact_at) VALUES (?, ?, ?, ?, ?)',
       ),
@@ -258,17 +277,31 @@ export class SqliteStorage implements Storage {
       ),
       deviceGrades: p('SELECT * FROM device_grades WHERE seam_id = ? ORDER BY device_kid'),
       insertChange: p(
-        `INSERT INTO changes (kind, item_id, seam_id, device_kid, item, created_at, created_by)
-         VALUES (?, ?, ?, ?, ?, ?, ?)`,
+        `INSERT INTO changes (kind, item_id, seam_id, device_kid, inspector_id, item, created_at, created_by)
+         VALUES (?, ?, ?, ?, ?, ?, ?, ?)`,
       ),
       changeBySeq: p('SELECT * FROM changes WHERE seq = ?'),
+      // Addressed to the device; a decision on a seam the device worked on or its inspector was assigned; an
+      // assignment to its inspector made after the device was tied (earlier ones were copied to it then).
       changesFor: p(
-        `SELECT * FROM changes
-         WHERE seq > @after AND (device_kid = @kid
-           OR (device_kid IS NULL AND seam_id IN (SELECT seam_id FROM device_seams WHERE device_kid = @kid)))
-         ORDER BY seq LIMIT @limit`,
+        `WITH me AS (SELECT inspector_id, inspector_from_seq FROM devices WHERE kid = @kid)
+         SELECT c.* FROM changes c
+         WHERE c.seq > @after AND (c.device_kid = @kid
+           OR (c.device_kid IS NULL AND c.inspector_id IS NULL AND (
+             c.seam_id IN (SELECT seam_id FROM device_seams WHERE device_kid = @kid)
+             OR c.seam_id IN (SELECT a.seam_id FROM changes a, me
+               WHERE a.kind = 'assignment' AND a.inspector_id = me.inspector_id)))
+           OR (c.device_kid IS NULL AND c.inspector_id = (SELECT inspector_id FROM me)
+             AND c.seq > (SELECT inspector_from_seq FROM me)))
+         ORDER BY c.seq LIMIT @limit`,
       ),
       lastChange: p('SELECT coalesce(max(seq), 0) AS seq FROM changes'),
+      seamsAssignedToDevice: p(
+        `SELECT DISTINCT seam_id AS id FROM changes WHERE kind = 'assignment' AND device_kid = ? ORDER BY seam_id`,
+      ),
+      seamsAssignedToInspector: p(
+        `SELECT DISTINCT seam_id AS id FROM changes WHERE kind = 'assignment' AND inspector_id = ? ORDER BY seam_id`,
+      ),
     };
   }
 
@@ -299,6 +332,10 @@ export class SqliteStorage implements Storage {
       createdAt: a.createdAt,
     });
     return withoutHash(toAccount(this.#s.accountById.get(info.lastInsertRowid) as AccountRow));
+  }
+
+  async listAccounts(role: Account['role']): Promise<Account[]> {
+    return (this.#s.accountsOfRole.all(role) as AccountRow[]).map((r) => withoutHash(toAccount(r)));
   }
 
   async findAccount(username: string): Promise<AccountWithHash | undefined> {
@@ -364,7 +401,13 @@ export class SqliteStorage implements Storage {
     this.#db
       .transaction(() => {
         this.#s.deleteOldCodes.run(code.createdAt);
-        this.#s.insertCode.run(code.codeHash, code.createdBy, code.createdAt, code.expiresAt);
+        this.#s.insertCode.run(
+          code.codeHash,
+          code.createdBy,
+          code.createdAt,
+          code.expiresAt,
+          code.inspectorId ?? null,
+        );
       })
       .immediate();
   }
@@ -373,7 +416,13 @@ export class SqliteStorage implements Storage {
     return this.#db
       .transaction((): EnrolOutcome => {
         const code = this.#s.codeByHash.get(a.codeHash) as
-          { expires_at: string; used_at: string | null; used_by_kid: string | null } | undefined;
+          | {
+              expires_at: string;
+              used_at: string | null;
+              used_by_kid: string | null;
+              inspector_id: number | null;
+            }
+          | undefined;
         const existing = this.#s.device.get(a.kid) as DeviceRow | undefined;
         if (!code) return { kind: 'codeUnknown' };
         if (code.used_at !== null) {
@@ -385,7 +434,11 @@ export class SqliteStorage implements Storage {
         }
         if (code.expires_at <= a.now) return { kind: 'codeExpired' };
         if (existing?.revoked_at != null) return { kind: 'revoked' };
-        if (!existing) this.#s.insertDevice.run(a.kid, a.publicJwk, a.name, a.now, a.now);
+        if (!existing) {
+          this.#s.insertDevice.run(a.kid, a.publicJwk, a.name, a.now, a.now);
+          // A new device pulls from the start, so every assignment to its inspector reaches it.
+          if (code.inspector_id !== null) this.#s.setInspector.run(code.inspector_id, 0, a.kid);
+        }
         this.#s.useCode.run(a.now, a.kid, a.codeHash);
         const device = toDevice(this.#s.device.get(a.kid) as DeviceRow);
         return { kind: existing ? 'alreadyEnrolled' : 'enrolled', device };
@@ -400,6 +453,27 @@ export class SqliteStorage implements Storage {
 
   async listDevices(): Promise<Device[]> {
     return (this.#s.devices.all() as DeviceRow[]).map(toDevice);
+  }
+
+  async tieDevice(
+    kid: string,
+    inspectorId: number | null,
+    copy: (assignment: ChangeRow) => NewChange,
+  ): Promise<boolean> {
+    return this.#db
+      .transaction(() => {
+        const device = this.#s.device.get(kid) as DeviceRow | undefined;
+        if (!device) return false;
+        if (device.inspector_id === inspectorId) return true;
+        if (inspectorId !== null) {
+          const through = (this.#s.lastChange.get() as { seq: number }).seq;
+          for (const row of this.#s.inspectorAssignments.all(inspectorId, through) as ChangeDbRow[])
+            this.#insertChange(copy(toChange(row)));
+        }
+        this.#s.setInspector.run(inspectorId, (this.#s.lastChange.get() as { seq: number }).seq, kid);
+        return true;
+      })
+      .immediate();
   }
 
   async renameDevice(kid: string, name: string): Promise<boolean> {
@@ -785,22 +859,23 @@ export class SqliteStorage implements Storage {
   }
 
   async addChange(c: NewChange): Promise<ChangeRow> {
-    return this.#db
-      .transaction(() => {
-        const info = this.#s.insertChange.run(
-          c.kind,
-          c.itemId,
-          c.seamId,
-          c.deviceKid,
-          c.item,
-          c.createdAt,
-          c.createdBy,
-        );
-        // An assignment makes the device one that works on the seam: it receives the seam's decisions too.
-        if (c.deviceKid !== null) this.#s.linkDeviceSeam.run(c.deviceKid, c.seamId);
-        return toChange(this.#s.changeBySeq.get(info.lastInsertRowid) as ChangeDbRow);
-      })
-      .immediate();
+    return this.#db.transaction(() => this.#insertChange(c)).immediate();
+  }
+
+  #insertChange(c: NewChange): ChangeRow {
+    const info = this.#s.insertChange.run(
+      c.kind,
+      c.itemId,
+      c.seamId,
+      c.deviceKid,
+      c.inspectorId ?? null,
+      c.item,
+      c.createdAt,
+      c.createdBy,
+    );
+    // An assignment makes the device one that works on the seam: it receives the seam's decisions too.
+    if (c.deviceKid !== null) this.#s.linkDeviceSeam.run(c.deviceKid, c.seamId);
+    return toChange(this.#s.changeBySeq.get(info.lastInsertRowid) as ChangeDbRow);
   }
 
   async changesFor(
@@ -818,6 +893,15 @@ export class SqliteStorage implements Storage {
       const through = more ? (changes[changes.length - 1] as ChangeRow).seq : Math.max(afterSeq, last);
       return { changes, through, more };
     })();
+  }
+
+  async assignedSeams(target: { deviceKid: string } | { inspectorId: number }): Promise<string[]> {
+    const rows = (
+      'deviceKid' in target
+        ? this.#s.seamsAssignedToDevice.all(target.deviceKid)
+        : this.#s.seamsAssignedToInspector.all(target.inspectorId)
+    ) as { id: string }[];
+    return rows.map((r) => r.id);
   }
 
   async latestRecordSeq(seamId: string): Promise<number> {

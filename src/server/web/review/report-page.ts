@@ -13,6 +13,7 @@
 //    checklist, the reviewer's decision with date, both device and server times.
 //  - Beadbook's own rules: rows that rest on recalled values are marked unverified; the safety caution.
 import { DECISION_OUTCOMES } from '../../../protocol/index.js';
+import { describeViewing } from '../../../domain/model/viewing.js';
 import { fmtNumber } from '../../../app/components/format.js';
 import { html, type Html } from '../html.js';
 import { layout } from '../pages.js';
@@ -52,6 +53,26 @@ function examiners(d: SeamDetail): string[] {
   for (const r of d.rounds) add(r.examiner);
   for (const { reading } of d.readings) add(reading.examiner);
   return [...names.values()];
+}
+
+/** Each round's conditions as the inspector recorded them; a round without them leaves blanks to fill in. */
+function viewingList(d: SeamDetail): Html {
+  const byRound = new Map(d.review.folded.viewing.map((v) => [v.round, v]));
+  if (!d.rounds.length) return html`<p>No round received.</p>`;
+  return html`<ul class="viewing">
+    ${d.rounds.map((r) => {
+      const v = byRound.get(r.number);
+      return v
+        ? html`<li>
+            ${roundTitle(r.number, r.kind)}: ${describeViewing(v.conditions)}. Recorded ${utc(v.recordedAt)}
+            (device clock)${v.records > 1 ? `, corrected ${v.records - 1} time(s)` : ''}.
+          </li>`
+        : html`<li>
+            ${roundTitle(r.number, r.kind)}: not recorded on the tablet — state them here. Viewing direct /
+            remote; illuminance ______ lx; distance ______ mm; angle ______°; aids: ______.
+          </li>`;
+    })}
+  </ul>`;
 }
 
 function oneReport(d: SeamDetail, printedAt: string): Html {
@@ -134,10 +155,7 @@ function oneReport(d: SeamDetail, printedAt: string): Html {
       Graded round: ${s.gradedRound ?? 'none complete'}.
     </p>
     <h2>Viewing and lighting conditions, aids ${source(ISO17637)}</h2>
-    <p>
-      Lighting and viewing conditions are not recorded by the tablet: state them here. Illuminance ______ lx;
-      viewing distance ______ mm; viewing angle ______°; aids: ______.
-    </p>
+    ${viewingList(d)}
     <h3>Instruments ${source(COMMON)}</h3>
     ${
       instruments(d).length

@@ -1,6 +1,7 @@
 // One seam for review: the server's grade beside the devices', the decision form and the decisions so far, the
 // set-up, each round with its strip chart (limit lines), imperfections and checklist, every reading, the fatigue
 // assessment, and the signature of every batch the records came in.
+import { describeViewing } from '../../../domain/model/viewing.js';
 import { DECISION_OUTCOMES } from '../../../protocol/index.js';
 import { html, type Html } from '../html.js';
 import { layout } from '../pages.js';
@@ -93,8 +94,9 @@ export function seamPage(
                   ${d.assignments.map(
                     (a) =>
                       html`<li>
-                        to ${a.deviceName ?? a.deviceKid ?? '—'} by ${a.assignedBy ?? '—'},
-                        ${utc(a.assignedAt)}${a.note ? ` — ${a.note}` : ''}
+                        to
+                        ${a.inspector !== null ? `inspector ${a.inspector}` : (a.deviceName ?? a.deviceKid ?? '—')}
+                        by ${a.assignedBy ?? '—'}, ${utc(a.assignedAt)}${a.note ? ` — ${a.note}` : ''}
                       </li>`,
                   )}
                 </ul>`
@@ -112,6 +114,15 @@ export function seamPage(
                 ? ` by ${round.examiner.name}${round.examiner.qualification ? ` (${round.examiner.qualification})` : ''}`
                 : ''
             }${g ? `; ${g.readingCount} current reading(s), ${g.borderlineCount} borderline value(s)` : ''}
+          </p>
+          <p class="viewing">
+            Viewing and lighting:
+            ${(() => {
+              const v = d.review.folded.viewing.find((x) => x.round === round.number);
+              return v
+                ? `${describeViewing(v.conditions)} (${utc(v.recordedAt)}, device clock${v.records > 1 ? `; corrected ${v.records - 1} time(s)` : ''})`
+                : 'not recorded on the tablet';
+            })()}
           </p>
           ${
             g && seam
