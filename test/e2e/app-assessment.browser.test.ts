@@ -1,41 +1,19 @@
 // The seam screen's fatigue assessment, from the worker's reply to the page: the invented demo yard's deck
 // splice shows km, the crack-site ranking, the fatigue-class flag with the caution, the charts and the advice on
 // how many positions to measure; an engineer's choice of detail is saved and graded again.
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
 import { INDICATIVE_CAUTION } from '../../src/domain/caution.js';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
 import { appHeader } from './support/vitest/app-page.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: StaticServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-});
+const e2e = useBrowser();
 
 describe('the fatigue assessment on the seam screen', () => {
   it('shows km, the crack-site ranking, the flag with the caution and the sampling advice; saves a chosen detail', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.serveStatic(current.dir);
+    const { page, errors } = await e2e.launch();
     await page.goto(server.origin);
     await appHeader(page).waitFor();
 

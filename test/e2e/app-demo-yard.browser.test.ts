@@ -1,39 +1,17 @@
 // The demo yard: loaded from the empty first screen, listed with a demo marker on every seam and levels B, C,
 // D and below D in words, and removed again from Settings, which leaves the first screen empty.
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
+import { describe, expect, inject, it } from 'vitest';
 import { appHeader } from './support/vitest/app-page.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: StaticServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-});
+const e2e = useBrowser();
 
 describe('the demo yard', () => {
   it('loads from the empty first screen, shows marked seams at every level, and is removed in Settings', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.serveStatic(current.dir);
+    const { page, errors } = await e2e.launch();
     await page.goto(server.origin);
     await appHeader(page).waitFor();
 

@@ -2,33 +2,15 @@
 // examiner named in Settings, the New seam form, the instrument confirmed, a toe angle and an undercut at a chosen toe saved, each reading's
 // level shown, then the checklist answered on the seam screen, which takes the seam from "incomplete" to its
 // level. Expected levels are worked out from ISO 5817:2014 Table 1 beside each assertion.
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { appHeader } from './support/vitest/app-page.js';
 import { gaugeStatus, seamBadge, tabTo, textbox } from './support/vitest/app-flows.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: StaticServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-});
+const e2e = useBrowser();
 
 const CHECKLIST = [
   'Cracks',
@@ -51,11 +33,8 @@ async function typeInto(page: Page, label: string, text: string): Promise<void> 
 
 describe('gauging by keyboard only', () => {
   it('sets up a seam, saves a toe angle and an undercut, answers the checklist and shows the levels', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.serveStatic(current.dir);
+    const { page, errors } = await e2e.launch();
     await page.goto(server.origin);
     await appHeader(page).waitFor();
     await page.getByRole('heading', { name: 'Welcome to Beadbook' }).waitFor();

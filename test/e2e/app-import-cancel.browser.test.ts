@@ -1,41 +1,19 @@
 // The Import screen's long-file controls and its memory: a 40 MB table shows its progress and is cancelled
 // mid-read with nothing stored; a mapping changed by hand is saved for that column layout, so the next file from
 // the same scanner maps itself.
-import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { ROOT } from './support/paths.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
 import { waitForController } from './support/vitest/app-page.js';
 import { createSeam, seamBadge } from './support/vitest/app-flows.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 const TABLE = readFileSync(join(ROOT, 'test/fixtures/import/line3-scan.csv'));
 
-let server: StaticServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-let tmp: string | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
-  if (tmp) rmSync(tmp, { recursive: true, force: true });
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-  tmp = undefined;
-});
+const e2e = useBrowser();
 
 async function openImport(page: Page): Promise<void> {
   await page.getByRole('link', { name: 'Import scanner file' }).click();
@@ -47,18 +25,14 @@ const holds = (page: Page, n: number, name: string) =>
 
 describe('Import screen: cancel and saved mappings', () => {
   it('cancels a long read with nothing stored, and maps the next file from the saved profile', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.serveStatic(current.dir);
+    const { page, errors } = await e2e.launch();
     await page.goto(server.origin);
     await waitForController(page);
     await createSeam(page, { label: 'Long seam', thickness: 10, length: 1000 });
 
     // 40 MB of rows, each beyond the 1000 mm seam: every row is read and set aside, so the read takes a while.
-    tmp = mkdtempSync(join(tmpdir(), 'beadbook-e2e-import-'));
-    const big = join(tmp, 'long.csv');
+    const big = join(await e2e.scratchDir('beadbook-e2e-import-'), 'long.csv');
     const row = '5000;150,0;149,0;1,0;1,0;2,0;14,0;0,0;0,4\n';
     writeFileSync(
       big,

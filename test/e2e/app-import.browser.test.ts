@@ -3,35 +3,17 @@
 // then imported and graded on the seam screen; then a raw profile file the same way.
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { ROOT } from './support/paths.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
 import { appHeader, waitForController } from './support/vitest/app-page.js';
 import { createSeam, seamBadge } from './support/vitest/app-flows.js';
 import { weldProfile } from '../support/weld-profile.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: StaticServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-});
+const e2e = useBrowser();
 
 function profileFile(): Buffer {
   const lines = ['slice_mm,x_mm,z_mm'];
@@ -53,11 +35,8 @@ async function openImport(page: Page): Promise<void> {
 
 describe('scanner import in the browser', () => {
   it('imports a parameter table and a raw profile file offline, and the seam grades them', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.serveStatic(current.dir);
+    const { context, page, errors } = await e2e.launch();
     await page.goto(server.origin);
     await waitForController(page);
     await createSeam(page, { label: 'Scanned seam', thickness: 10, length: 1000 });

@@ -2,16 +2,8 @@
 // listed and graded after a reload, a new reading is entered and graded with no network (both workers come from
 // the precache), it survives another reload, and everything is still there after the browser itself is closed
 // and started again on the same profile.
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { appHeader, waitForController } from './support/vitest/app-page.js';
 import {
   createSeam,
@@ -20,21 +12,11 @@ import {
   saveToeAngle,
   seamBadge,
 } from './support/vitest/app-flows.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: StaticServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-});
+const e2e = useBrowser();
 
 async function expectServerDown(origin: string): Promise<void> {
   await expect(fetch(`${origin}/index.html`)).rejects.toThrow();
@@ -69,11 +51,8 @@ const readingTexts = (page: Page) => page.locator('ol.readings > li').allTextCon
 
 describe('the app offline', () => {
   it('lists, opens, grades and takes new readings with no server and no network, across reloads', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.serveStatic(current.dir);
+    const { context, page, errors } = await e2e.launch();
     await makeSeams(page, server.origin);
 
     await server.stop();
@@ -117,21 +96,16 @@ describe('the app offline', () => {
   });
 
   it('keeps the seams and readings when the browser is closed and started again offline', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const first = await firstPage(context);
-    const firstErrors = collectPageErrors(first);
+    const server = await e2e.serveStatic(current.dir);
+    const { context: before, page: first, errors: firstErrors, profile } = await e2e.launch();
     await makeSeams(first, server.origin);
     expect(firstErrors).toEqual([]);
-    await context.close();
+    await before.close();
 
     await server.stop();
     await expectServerDown(server.origin);
-    context = await launchChromium(profile);
+    const { context, page, errors } = await e2e.launch({ profile });
     await context.setOffline(true);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
     await page.goto(server.origin);
     await appHeader(page).waitFor();
 

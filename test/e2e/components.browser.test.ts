@@ -1,29 +1,23 @@
 // The install hint and the storage status, mounted alone on a test page (test/e2e/fixtures/components) and
 // driven in Chromium: with the browser's own answers, and with the answers other browsers give (an install
 // event, a refused or missing persistent-storage API), which the tests stage before the page loads.
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
+import { afterEach, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { collectPageErrors, launchChromium, newProfileDir, removeProfileDir } from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
+import { collectPageErrors } from './support/chromium.js';
+import type { StaticServer } from './support/static-server.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { components } = inject('e2eBuilds');
 
+const e2e = useBrowser({ per: 'file' });
 let server: StaticServer;
-let profile: string;
 let context: BrowserContext;
 let page: Page;
 let errors: string[];
 
 beforeAll(async () => {
-  server = await serveStatic(components.dir);
-  profile = await newProfileDir();
-  context = await launchChromium(profile);
-});
-
-afterAll(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
+  server = await e2e.serveStatic(components.dir);
+  ({ context } = await e2e.launch());
 });
 
 beforeEach(async () => {

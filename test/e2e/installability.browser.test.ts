@@ -1,16 +1,10 @@
 // The built app is installable: Chromium finds a valid manifest with the icons it needs, and a service worker
 // controls the page.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
+import type { StaticServer } from './support/static-server.js';
 import { appHeader, waitForController } from './support/vitest/app-page.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 interface ManifestIcon {
   readonly src: string;
@@ -28,26 +22,17 @@ interface WebManifest {
 }
 
 const { current } = inject('e2eBuilds');
+const e2e = useBrowser({ per: 'file' });
 let server: StaticServer;
-let profile: string;
 let context: BrowserContext;
 let page: Page;
 let errors: string[];
 
 beforeAll(async () => {
-  server = await serveStatic(current.dir);
-  profile = await newProfileDir();
-  context = await launchChromium(profile);
-  page = await firstPage(context);
-  errors = collectPageErrors(page);
+  server = await e2e.serveStatic(current.dir);
+  ({ context, page, errors } = await e2e.launch());
   await page.goto(server.origin);
   await appHeader(page).waitFor();
-});
-
-afterAll(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
 });
 
 describe('installability', () => {

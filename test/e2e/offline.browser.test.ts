@@ -2,32 +2,13 @@
 // can bring the app up; data written to IndexedDB before going offline must read back after a reload and after
 // the browser itself is closed and started again on the same profile.
 import { randomUUID } from 'node:crypto';
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
+import { describe, expect, inject, it } from 'vitest';
 import { appHeader, readProbe, waitForController, writeProbe } from './support/vitest/app-page.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: StaticServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-});
+const e2e = useBrowser();
 
 /** Proves the server is really gone: a request from Node fails to connect. */
 async function expectServerDown(origin: string): Promise<void> {
@@ -36,11 +17,8 @@ async function expectServerDown(origin: string): Promise<void> {
 
 describe('offline', () => {
   it('reloads with no server and no network, and reads back IndexedDB data written online', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.serveStatic(current.dir);
+    const { context, page, errors } = await e2e.launch();
     await page.goto(server.origin);
     await waitForController(page);
     const token = randomUUID();
@@ -57,22 +35,18 @@ describe('offline', () => {
   });
 
   it('opens offline after the browser is closed and started again, with the IndexedDB data kept', async () => {
-    server = await serveStatic(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const first = await firstPage(context);
+    const server = await e2e.serveStatic(current.dir);
+    const { context: before, page: first, profile } = await e2e.launch();
     await first.goto(server.origin);
     await waitForController(first);
     const token = randomUUID();
     await writeProbe(first, token);
-    await context.close();
+    await before.close();
 
     await server.stop();
     await expectServerDown(server.origin);
-    context = await launchChromium(profile);
+    const { context, page, errors } = await e2e.launch({ profile });
     await context.setOffline(true);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
     await page.goto(server.origin);
 
     await appHeader(page).waitFor({ state: 'visible' });

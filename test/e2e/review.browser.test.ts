@@ -4,44 +4,27 @@
 // holds the tablet's values; and the printed report, saved as PDF by Chromium, carries the seam's level, the
 // decision and the caution in the text poppler's pdftotext extracts from it.
 import { execFile } from 'node:child_process';
-import { mkdtemp, readFile, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
+import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
 import Papa from 'papaparse';
-import type { BrowserContext, Page } from 'playwright-core';
-import { afterEach, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
 import { INDICATIVE_CAUTION } from '../../src/domain/index.js';
 import { uuidv7 } from '../../src/store/ids.js';
 import { bodies, testSeam, toeReading } from '../server/records.js';
 import { SimDevice } from '../server/sim-device.js';
 import { completeChecklist } from '../support/seam-builder.js';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
+import { collectPageErrors } from './support/chromium.js';
 import { waitForController } from './support/vitest/app-page.js';
 import { createSeam, openGaugeWithToeGauge, saveToeAngle, textbox } from './support/vitest/app-flows.js';
-import { startYardServer, SUPERVISOR, type YardServer } from './support/vitest/yard-server.js';
+import { SUPERVISOR, type YardServer } from './support/vitest/yard-server.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 const run = promisify(execFile);
 
-let server: YardServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-let scratch: string | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.close();
-  if (profile) await removeProfileDir(profile);
-  if (scratch) await rm(scratch, { recursive: true, force: true });
-  context = server = profile = scratch = undefined;
-});
+const e2e = useBrowser();
 
 const nav = (page: Page, name: string) =>
   page.getByRole('navigation', { name: 'Screens' }).getByRole('link', { name }).click();
@@ -78,13 +61,9 @@ async function seedGradedSeam(yard: YardServer): Promise<string> {
 
 describe('supervisor review in Chromium', () => {
   it('signs in, filters, decides; the tablet pulls and shows the decision; CSV and a PDF report carry the results', async () => {
-    server = await startYardServer(current.dir);
-    const yard = server;
-    profile = await newProfileDir();
-    scratch = await mkdtemp(join(tmpdir(), 'beadbook-review-'));
-    context = await launchChromium(profile);
-    const tablet = await firstPage(context);
-    const tabletErrors = collectPageErrors(tablet);
+    const yard = await e2e.startYardServer(current.dir);
+    const scratch = await e2e.scratchDir('beadbook-review-');
+    const { context, page: tablet, errors: tabletErrors } = await e2e.launch();
     await tablet.goto(yard.origin);
     await waitForController(tablet);
     await enrol(tablet, yard);

@@ -1,29 +1,13 @@
 // A seam list uploaded from a file in real Chromium: the supervisor chooses the file, keeps the guessed mapping,
 // sees every row checked with its line before anything is kept, decides to leave the bad row out, and the sound
 // seams are imported and assigned to an inspector.
-import type { BrowserContext } from 'playwright-core';
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { startYardServer, SUPERVISOR, type YardServer } from './support/vitest/yard-server.js';
+import { describe, expect, inject, it } from 'vitest';
+import { SUPERVISOR } from './support/vitest/yard-server.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: YardServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.close();
-  if (profile) await removeProfileDir(profile);
-  context = server = profile = undefined;
-});
+const e2e = useBrowser();
 
 const LIST = [
   'id,label,jointType,t1,length,material,tags',
@@ -34,18 +18,14 @@ const LIST = [
 
 describe('seam list upload in Chromium', () => {
   it('maps, checks every row, keeps nothing until told, then imports the sound rows for an inspector', async () => {
-    server = await startYardServer(current.dir);
-    const yard = server;
+    const yard = await e2e.startYardServer(current.dir);
     const made = await yard.admin('POST', '/accounts', {
       username: 'ines',
       password: 'inspector-pass-1',
       role: 'inspector',
     });
     expect(made.status).toBe(201);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const desk = await firstPage(context);
-    const errors = collectPageErrors(desk);
+    const { page: desk, errors } = await e2e.launch();
     await desk.goto(`${yard.origin}/supervisor/login`);
     await desk.getByLabel('Name').fill(SUPERVISOR.username);
     await desk.getByLabel('Password').fill(SUPERVISOR.password);

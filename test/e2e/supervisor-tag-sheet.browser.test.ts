@@ -1,32 +1,17 @@
 // The supervisor's tag sheet in real Chromium: the labels of the seams assigned to an inspector are drawn, and the
 // QR code and Code 128 of a label, read back from the rendered page's pixels with the tablet's own zxing decoder,
 // give the tag; printed, only the sheet shows, A4 wide.
-import type { BrowserContext, Page } from 'playwright-core';
-import { afterEach, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
 import { createTagDecoder, type LumaFrame } from '../../workers/tag-decode-core.js';
 import { zxingKitNode } from '../../workers/zxing-kit-node.js';
 import { testSeam } from '../server/records.js';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { startYardServer, SUPERVISOR, type YardServer } from './support/vitest/yard-server.js';
+import { SUPERVISOR } from './support/vitest/yard-server.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: YardServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.close();
-  if (profile) await removeProfileDir(profile);
-  context = server = profile = undefined;
-});
+const e2e = useBrowser();
 
 /** The image drawn on a white canvas at `scale` times its natural size, as one byte of luminance per pixel. */
 async function luma(page: Page, selector: string, scale: number): Promise<LumaFrame> {
@@ -51,8 +36,7 @@ async function luma(page: Page, selector: string, scale: number): Promise<LumaFr
 
 describe('supervisor tag sheet in Chromium', () => {
   it('draws the inspector’s seam labels, whose symbols read back as their tags, and prints only the sheet', async () => {
-    server = await startYardServer(current.dir);
-    const yard = server;
+    const yard = await e2e.startYardServer(current.dir);
     for (const seam of [
       testSeam('SHEET-1', { label: 'Hatch coaming 1', tags: ['KP-Q41'] }),
       testSeam('SHEET-2', { label: 'Hatch coaming 2', tags: ['KP-Q42', 'KP-Q43'] }),
@@ -68,10 +52,7 @@ describe('supervisor tag sheet in Chromium', () => {
     for (const seamId of ['SHEET-1', 'SHEET-2'])
       expect((await yard.admin('POST', '/assignments', { seamId, inspector: 'ines' })).status).toBe(201);
 
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const desk = await firstPage(context);
-    const errors = collectPageErrors(desk);
+    const { page: desk, errors } = await e2e.launch();
     await desk.goto(`${yard.origin}/supervisor/login`);
     await desk.getByLabel('Name').fill(SUPERVISOR.username);
     await desk.getByLabel('Password').fill(SUPERVISOR.password);

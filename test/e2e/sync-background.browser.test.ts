@@ -3,35 +3,17 @@
 // browser wakes the service worker, which sends them with the same signed batches (design notes §4). The test
 // fires the sync event through the DevTools protocol (ServiceWorker.dispatchSyncEvent), as Chromium itself
 // does once it sees the network again, so the outcome does not hang on the browser's own connectivity probe.
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext, CDPSession } from 'playwright-core';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
+import { describe, expect, inject, it } from 'vitest';
+import type { CDPSession } from 'playwright-core';
 import { waitForController } from './support/vitest/app-page.js';
 import { createSeam, openGaugeWithToeGauge, saveToeAngle } from './support/vitest/app-flows.js';
 import { enrol, localRecords, serverRecords } from './support/vitest/sync-flows.js';
-import { startYardServer, type YardServer } from './support/vitest/yard-server.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 const OUTBOX_SYNC_TAG = 'beadbook-outbox';
 
-let server: YardServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.close();
-  if (profile) await removeProfileDir(profile);
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-});
+const e2e = useBrowser();
 
 interface Registration {
   readonly registrationId: string;
@@ -53,11 +35,8 @@ async function registrationOf(cdp: CDPSession, origin: string): Promise<string> 
 
 describe('Background Sync', () => {
   it('sends what was recorded offline once online, with no Beadbook page open', async () => {
-    server = await startYardServer(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.startYardServer(current.dir);
+    const { page, errors, context } = await e2e.launch();
     await page.goto(server.origin);
     await waitForController(page);
     await enrol(page, server);

@@ -3,43 +3,21 @@
 // recorded offline, the browser is closed and started again on the same profile, and once online the app sends
 // them by itself (F3 in ../shared/reliability.md). The server then holds exactly those records, each in a batch
 // whose signature verifies with the key the device enrolled (design notes §4; RFC 7515 flattened JWS, ES256).
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
 import { parseFlattenedJws, toPublicJwk, verifyJws } from '../../src/protocol/index.js';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
 import { appHeader, waitForController } from './support/vitest/app-page.js';
 import { createSeam, openGaugeWithToeGauge, saveToeAngle } from './support/vitest/app-flows.js';
-import { startYardServer, type YardServer } from './support/vitest/yard-server.js';
 import { enrol, localRecords, serverRecords } from './support/vitest/sync-flows.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: YardServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.close();
-  if (profile) await removeProfileDir(profile);
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-});
+const e2e = useBrowser();
 
 describe('signed sync from the tablet', () => {
   it('enrols, records offline, survives a browser restart and sends exactly those records once online', async () => {
-    server = await startYardServer(current.dir);
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const server = await e2e.startYardServer(current.dir);
+    const { page, errors, context, profile } = await e2e.launch();
     await page.goto(server.origin);
     await waitForController(page);
     await enrol(page, server);
@@ -80,9 +58,7 @@ describe('signed sync from the tablet', () => {
     await context.close();
 
     // The browser starts again on the same profile, online: the app sends on start, with no user action.
-    context = await launchChromium(profile);
-    const again = await firstPage(context);
-    const againErrors = collectPageErrors(again);
+    const { page: again, errors: againErrors } = await e2e.launch({ profile });
     await again.goto(server.origin);
     await appHeader(again).waitFor();
     const yard = server;

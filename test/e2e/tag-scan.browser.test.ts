@@ -3,62 +3,35 @@
 // linked to a seam, then opens it from the Seams screen; scanning it from another seam shows both seams and
 // changes nothing until the move is confirmed. Tag text with markup and script renders as text.
 import { readFileSync } from 'node:fs';
-import { mkdtemp, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { drawSymbol, onBackground } from '../support/barcode-images.js';
 import { bmpOf } from '../support/bmp.js';
 import { writeY4m } from '../support/y4m.js';
 import { eagerChunks, readBuildManifest } from './support/build-app.js';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
 import { appHeader } from './support/vitest/app-page.js';
 import { createSeam, textbox } from './support/vitest/app-flows.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 const TAG = 'KP-E2E-0417';
 
-let server: StaticServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-let videoDir: string | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.stop();
-  if (profile) await removeProfileDir(profile);
-  if (videoDir) await rm(videoDir, { recursive: true, force: true });
-  context = undefined;
-  server = undefined;
-  profile = undefined;
-  videoDir = undefined;
-});
+const e2e = useBrowser();
 
 /** A 1280 × 720 video of the tag as a QR code (8 px modules, 4-module quiet zone) on a plain grey ground. */
 async function tagVideo(): Promise<string> {
-  videoDir = await mkdtemp(join(tmpdir(), 'beadbook-camera-'));
-  const file = join(videoDir, 'tag.y4m');
+  const file = join(await e2e.scratchDir('beadbook-camera-'), 'tag.y4m');
   await writeY4m(file, onBackground(drawSymbol('qr', TAG, 8), 1280, 720, 170));
   return file;
 }
 
 async function openApp(options: {
   camera: boolean;
-}): Promise<{ page: Page; errors: string[]; decoderRequests: string[] }> {
-  server = await serveStatic(current.dir);
-  profile = await newProfileDir();
-  context = await launchChromium(profile, options.camera ? { fakeCameraFile: await tagVideo() } : {});
-  const page = await firstPage(context);
-  const errors = collectPageErrors(page);
+}): Promise<{ origin: string; page: Page; errors: string[]; decoderRequests: string[] }> {
+  const server = await e2e.serveStatic(current.dir);
+  const { page, errors } = await e2e.launch(options.camera ? { fakeCameraFile: await tagVideo() } : {});
   const decoderRequests: string[] = [];
   // The page's own requests (the worker script included), not the service worker's precache downloads.
   page.on('request', (r) => {
@@ -66,20 +39,20 @@ async function openApp(options: {
   });
   await page.goto(server.origin);
   await appHeader(page).waitFor();
-  return { page, errors, decoderRequests };
+  return { origin: server.origin, page, errors, decoderRequests };
 }
 
 const seamHeading = (page: Page, label: string) => page.getByRole('heading', { level: 1, name: label });
 
 describe('tag scanning with the camera', () => {
   it('links a scanned tag, opens its seam from the Seams screen, and loads the decoder only on the first scan', async () => {
-    const { page, errors, decoderRequests } = await openApp({ camera: true });
+    const { origin, page, errors, decoderRequests } = await openApp({ camera: true });
     const seamA = await createSeam(page, { label: 'Deck seam A', thickness: 12, length: 800 });
     await createSeam(page, { label: 'Deck seam B', thickness: 12, length: 800 });
     // Nothing has scanned yet: the decoder is not fetched.
     expect(decoderRequests).toEqual([]);
 
-    await page.goto(`${server?.origin}/#/seam/${encodeURIComponent(seamA)}`);
+    await page.goto(`${origin}/#/seam/${encodeURIComponent(seamA)}`);
     await page.getByRole('link', { name: 'Scan a tag for this seam' }).click();
     await page.getByRole('heading', { name: 'New tag' }).waitFor();
     expect(decoderRequests.length).toBeGreaterThan(0);
@@ -105,19 +78,19 @@ describe('tag scanning with the camera', () => {
   });
 
   it('shows both seams for a tag of another seam and moves it only on confirmation', async () => {
-    const { page, errors } = await openApp({ camera: true });
+    const { origin, page, errors } = await openApp({ camera: true });
     const seamA = await createSeam(page, { label: 'Tank shell A', thickness: 10, length: 600 });
     const seamB = await createSeam(page, { label: 'Tank shell B', thickness: 10, length: 600 });
 
     // Seam A gets the tag (typed: the screen stops the camera for typed input).
-    await page.goto(`${server?.origin}/#/tag/${encodeURIComponent(seamA)}`);
+    await page.goto(`${origin}/#/tag/${encodeURIComponent(seamA)}`);
     await textbox(page, 'Or type the tag').fill(TAG);
     await page.getByRole('button', { name: 'Find tag' }).click();
     await page.getByRole('button', { name: 'Add this tag to Tank shell A' }).click();
     await seamHeading(page, 'Tank shell A').waitFor();
 
     // From seam B the camera reads the same tag: both seams are named, nothing moves.
-    await page.goto(`${server?.origin}/#/seam/${encodeURIComponent(seamB)}`);
+    await page.goto(`${origin}/#/seam/${encodeURIComponent(seamB)}`);
     await page.getByRole('link', { name: 'Scan a tag for this seam' }).click();
     const conflict = page.locator('.tag-conflict');
     await conflict.waitFor();
@@ -128,16 +101,16 @@ describe('tag scanning with the camera', () => {
     expect(text).toContain('Nothing has been changed');
     // Still on the Tag screen for seam B, and seam A still holds the tag.
     expect(decodeURIComponent(new URL(page.url()).hash)).toBe(`#/tag/${seamB}`);
-    await page.goto(`${server?.origin}/#/seam/${encodeURIComponent(seamA)}`);
+    await page.goto(`${origin}/#/seam/${encodeURIComponent(seamA)}`);
     await seamHeading(page, 'Tank shell A').waitFor();
     await expect.poll(() => page.locator('.linked-tag-list .tag-text').allTextContents()).toEqual([TAG]);
 
     // Confirmed: the tag moves from A to B.
-    await page.goto(`${server?.origin}/#/tag/${encodeURIComponent(seamB)}`);
+    await page.goto(`${origin}/#/tag/${encodeURIComponent(seamB)}`);
     await page.getByRole('button', { name: 'Move the tag from Tank shell A to Tank shell B' }).click();
     await seamHeading(page, 'Tank shell B').waitFor();
     await expect.poll(() => page.locator('.linked-tag-list .tag-text').allTextContents()).toEqual([TAG]);
-    await page.goto(`${server?.origin}/#/seam/${encodeURIComponent(seamA)}`);
+    await page.goto(`${origin}/#/seam/${encodeURIComponent(seamA)}`);
     await seamHeading(page, 'Tank shell A').waitFor();
     await page.getByText('Linked tags: none').waitFor();
     expect(errors).toEqual([]);
@@ -146,9 +119,9 @@ describe('tag scanning with the camera', () => {
 
 describe('a photo of the tag', () => {
   it('reads a Data Matrix from a chosen photo when there is no camera, and opens its seam', async () => {
-    const { page, errors } = await openApp({ camera: false });
+    const { origin, page, errors } = await openApp({ camera: false });
     const seam = await createSeam(page, { label: 'Bracket seam P', thickness: 8, length: 300 });
-    await page.goto(`${server?.origin}/#/tag/${encodeURIComponent(seam)}`);
+    await page.goto(`${origin}/#/tag/${encodeURIComponent(seam)}`);
     await textbox(page, 'Or type the tag').fill('Naht-ä-7');
     await page.getByRole('button', { name: 'Find tag' }).click();
     await page.getByRole('button', { name: 'Add this tag to Bracket seam P' }).click();
@@ -158,7 +131,7 @@ describe('a photo of the tag', () => {
     const symbol = drawSymbol('dataMatrix', 'Naht-ä-7', 12);
     const photo = onBackground(symbol, 1600, 1200, 255);
     for (let i = 0; i < photo.data.length; i++) photo.data[i] = 255 - (photo.data[i] as number);
-    await page.goto(`${server?.origin}/#/tag`);
+    await page.goto(`${origin}/#/tag`);
     await page.getByLabel('Read a photo of the tag').setInputFiles({
       name: 'tag.bmp',
       mimeType: 'image/bmp',
@@ -180,9 +153,9 @@ describe('tag text is data', () => {
 
   it('renders injection payloads as text on the Tag screen, the seam and in search', async () => {
     // No camera here: the screen says so and typing still works.
-    const { page, errors } = await openApp({ camera: false });
+    const { origin, page, errors } = await openApp({ camera: false });
     const seam = await createSeam(page, { label: 'Frame seam X', thickness: 8, length: 400 });
-    await page.goto(`${server?.origin}/#/tag/${encodeURIComponent(seam)}`);
+    await page.goto(`${origin}/#/tag/${encodeURIComponent(seam)}`);
     await page
       .locator('.scan-status')
       .filter({ hasText: /camera/i })
@@ -208,7 +181,7 @@ describe('tag text is data', () => {
       .toEqual(['Frame seam X']);
 
     // Over-long and empty tags get a clear message.
-    await page.goto(`${server?.origin}/#/tag`);
+    await page.goto(`${origin}/#/tag`);
     await textbox(page, 'Or type the tag').fill('x'.repeat(300));
     await page.getByRole('button', { name: 'Find tag' }).click();
     await page.getByText(/The tag is 300 characters long; a tag may hold at most 256/).waitFor();
@@ -223,13 +196,13 @@ describe('tag text is data', () => {
 
 describe('tag labels', () => {
   it('draws labels for the chosen seam with the generator loaded only there, and prints only the sheet', async () => {
-    const { page, errors } = await openApp({ camera: false });
+    const { origin, page, errors } = await openApp({ camera: false });
     const generator: string[] = [];
     page.on('request', (r) => {
       if (r.url().includes('label-codes')) generator.push(r.url());
     });
     const seam = await createSeam(page, { label: 'Stiffener seam L', thickness: 10, length: 500 });
-    await page.goto(`${server?.origin}/#/tag/${encodeURIComponent(seam)}`);
+    await page.goto(`${origin}/#/tag/${encodeURIComponent(seam)}`);
     await textbox(page, 'Or type the tag').fill('KP-LBL-7');
     await page.getByRole('button', { name: 'Find tag' }).click();
     await page.getByRole('button', { name: 'Add this tag to Stiffener seam L' }).click();

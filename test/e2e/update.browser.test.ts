@@ -3,34 +3,17 @@
 // reloads into the new version. With two windows open, accepting in one tells the other to reload.
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import { lazyChunks, readBuildManifest } from './support/build-app.js';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
-import { serveStatic, type StaticServer } from './support/static-server.js';
+import { collectPageErrors } from './support/chromium.js';
+import type { StaticServer } from './support/static-server.js';
 import { appHeader, entryScript, waitForController } from './support/vitest/app-page.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current, next } = inject('e2eBuilds');
 
-// What the running test opened, closed after it whatever happened.
-let liveServer: StaticServer | undefined;
-let liveProfile: string | undefined;
-let liveContext: BrowserContext | undefined;
-
-afterEach(async () => {
-  await liveContext?.close();
-  await liveServer?.stop();
-  if (liveProfile) await removeProfileDir(liveProfile);
-  liveContext = undefined;
-  liveServer = undefined;
-  liveProfile = undefined;
-});
+const e2e = useBrowser();
 
 function entryOf(dir: string): string {
   const match = /<script type="module"[^>]*src="([^"]+)"/.exec(readFileSync(join(dir, 'index.html'), 'utf8'));
@@ -94,13 +77,8 @@ interface Opened {
 
 /** Serves the build, opens it in a fresh Chromium profile and waits until the service worker controls it. */
 async function openOn(dir: string): Promise<Opened> {
-  const server = await serveStatic(dir);
-  liveServer = server;
-  liveProfile = await newProfileDir();
-  const context = await launchChromium(liveProfile);
-  liveContext = context;
-  const page = await firstPage(context);
-  const errors = collectPageErrors(page);
+  const server = await e2e.serveStatic(dir);
+  const { context, page, errors } = await e2e.launch();
   await page.goto(server.origin);
   await waitForController(page);
   return { server, context, page, errors };

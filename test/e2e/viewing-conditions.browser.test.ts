@@ -1,43 +1,24 @@
 // Viewing and lighting conditions from the tablet to the printed report, in real Chromium against the real yard
 // server: the inspector records them for the round on the Seam screen (a value out of range is refused with its
 // reason and nothing kept), corrects them, sends, and the supervisor's report prints the corrected ones.
-import type { BrowserContext, Page } from 'playwright-core';
-import { afterEach, describe, expect, inject, it } from 'vitest';
-import {
-  collectPageErrors,
-  firstPage,
-  launchChromium,
-  newProfileDir,
-  removeProfileDir,
-} from './support/chromium.js';
+import type { Page } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
 import { waitForController } from './support/vitest/app-page.js';
 import { createSeam, textbox } from './support/vitest/app-flows.js';
-import { startYardServer, SUPERVISOR, type YardServer } from './support/vitest/yard-server.js';
+import { SUPERVISOR } from './support/vitest/yard-server.js';
+import { useBrowser } from './support/vitest/browser-test.js';
 
 const { current } = inject('e2eBuilds');
 
-let server: YardServer | undefined;
-let profile: string | undefined;
-let context: BrowserContext | undefined;
-
-afterEach(async () => {
-  await context?.close();
-  await server?.close();
-  if (profile) await removeProfileDir(profile);
-  context = server = profile = undefined;
-});
+const e2e = useBrowser();
 
 const nav = (page: Page, name: string) =>
   page.getByRole('navigation', { name: 'Screens' }).getByRole('link', { name }).click();
 
 describe('viewing conditions in Chromium', () => {
   it('are recorded and corrected on the tablet, sent, and printed in the supervisor’s report', async () => {
-    server = await startYardServer(current.dir);
-    const yard = server;
-    profile = await newProfileDir();
-    context = await launchChromium(profile);
-    const page = await firstPage(context);
-    const errors = collectPageErrors(page);
+    const yard = await e2e.startYardServer(current.dir);
+    const { page, errors, context } = await e2e.launch();
     await page.goto(yard.origin);
     await waitForController(page);
     const { code } = (await (await yard.admin('POST', '/enrolment-codes')).json()) as { code: string };

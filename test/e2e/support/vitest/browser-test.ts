@@ -1,0 +1,95 @@
+// One setup and teardown for every browser test: whatever a test starts through these handles (a static or yard
+// server, Chromium on a fresh profile, a scratch directory) is closed after it even when an assertion failed, in
+// one order: browsers first (they hold connections to the servers), then servers, then the directories.
+import { mkdtemp } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, afterEach } from 'vitest';
+import {
+  collectPageErrors,
+  firstPage,
+  launchChromium,
+  newProfileDir,
+  removeProfileDir,
+  type LaunchOptions,
+} from '../chromium.js';
+import { serveStatic, type StaticServer } from '../static-server.js';
+import { startYardServer, type YardServer } from './yard-server.js';
+
+export interface BrowserRun {
+  readonly context: BrowserContext;
+  /** The tab the browser opened with. */
+  readonly page: Page;
+  /** Uncaught errors of `page`, for the test's final `toEqual([])`. */
+  readonly errors: string[];
+  /** Pass it back to `launch` to start the browser again on the same storage. */
+  readonly profile: string;
+}
+
+export interface BrowserLaunchOptions extends LaunchOptions {
+  /** A profile from an earlier launch in the same test or file; a fresh one when left out. */
+  readonly profile?: string;
+}
+
+export interface BrowserTest {
+  serveStatic(dir: string): Promise<StaticServer>;
+  startYardServer(appDir: string): Promise<YardServer>;
+  launch(options?: BrowserLaunchOptions): Promise<BrowserRun>;
+  /** A directory of its own under the system temp directory. */
+  scratchDir(prefix: string): Promise<string>;
+}
+
+export interface UseBrowserOptions {
+  /**
+   * 'test' (the default) closes everything after each test; 'file' keeps one browser and server for all the
+   * tests of the file, for files whose tests only read what a single launch set up.
+   */
+  readonly per?: 'test' | 'file';
+}
+
+/** Registers the teardown hook of the calling file and returns the handles that start what it tears down. */
+export function useBrowser(options: UseBrowserOptions = {}): BrowserTest {
+  let contexts: BrowserContext[] = [];
+  let servers: { close(): Promise<void> }[] = [];
+  let dirs: string[] = [];
+
+  const teardown = async (): Promise<void> => {
+    const [openContexts, openServers, ownDirs] = [contexts, servers, dirs];
+    contexts = [];
+    servers = [];
+    dirs = [];
+    for (const context of openContexts.reverse()) await context.close();
+    for (const server of openServers.reverse()) await server.close();
+    for (const dir of ownDirs) await removeProfileDir(dir);
+  };
+  if (options.per === 'file') afterAll(teardown);
+  else afterEach(teardown);
+
+  return {
+    async serveStatic(dir) {
+      const server = await serveStatic(dir);
+      servers.push({ close: () => server.stop() });
+      return server;
+    },
+    async startYardServer(appDir) {
+      const server = await startYardServer(appDir);
+      servers.push(server);
+      return server;
+    },
+    async launch(launchOptions = {}) {
+      const { profile: reused, ...chromiumOptions } = launchOptions;
+      const profile = reused ?? (await newProfileDir());
+      if (!reused) dirs.push(profile);
+      const context = await launchChromium(profile, chromiumOptions);
+      contexts.push(context);
+      const page = await firstPage(context);
+      return { context, page, errors: collectPageErrors(page), profile };
+    },
+    async scratchDir(prefix) {
+      const dir = await mkdtemp(join(tmpdir(), prefix));
+      dirs.push(dir);
+      return dir;
+    },
+  };
+}
