@@ -5,7 +5,7 @@ import type { ChecklistAnswer, Namespace, RoundRecord, SeamRecord, SeamSummary }
 import { checkChecklistAnswer, checkExaminer, checkSeam } from './check-input.js';
 import type { StoreContext } from './context.js';
 import { StoreError } from './errors.js';
-import { entryForAdd, outboxEntry, roundBody, seamKeyRange } from './records.js';
+import { entryForAdd, outboxEntry, roundBody, seamKeyRange, type NewOutboxEntry } from './records.js';
 import { sameContent } from './same-content.js';
 
 const MAX_ROUND = 999;
@@ -133,7 +133,35 @@ export async function answerChecklist(
 ): Promise<RoundRecord> {
   const answer = checkChecklistAnswer(item, answerInput);
   const now = ctx.now();
-  const answerId = ctx.newId();
+  const entry = outboxEntry(
+    'checklistAnswer',
+    ctx.newId(),
+    { seamId, round: roundNumber, item, answer, answeredAt: now },
+    now,
+  );
+  return changeRound(ctx, seamId, roundNumber, entry, (round, seam) => {
+    if (answer.position !== undefined && answer.position > seam.seam.length) {
+      throw new StoreError(
+        'invalid',
+        `Checklist answer not saved:\nanswer.position: lies beyond the seam's length of ${seam.seam.length} mm; got ${answer.position}`,
+      );
+    }
+    if (sameContent(round.checklist[item], answer)) return undefined;
+    return { ...round, checklist: { ...round.checklist, [item]: answer } };
+  });
+}
+
+/**
+ * Writes what `change` makes of one round and, for a live seam, queues `entry` in the same transaction. A change
+ * that returns undefined (the same content again) writes and queues nothing, so repeats do not reach the server.
+ */
+export function changeRound(
+  ctx: StoreContext,
+  seamId: string,
+  roundNumber: number,
+  entry: NewOutboxEntry,
+  change: (round: RoundRecord, seam: SeamRecord) => RoundRecord | undefined,
+): Promise<RoundRecord> {
   return ctx.conn.run(['seams', 'rounds', 'outbox'], 'readwrite', async (tx) => {
     const seam = await tx.objectStore('seams').get(seamId);
     if (!seam) throw seamNotFound(seamId);
@@ -145,30 +173,10 @@ export async function answerChecklist(
         `Seam "${seamId}" has no round ${roundNumber}; start the round first.`,
       );
     }
-    if (answer.position !== undefined && answer.position > seam.seam.length) {
-      throw new StoreError(
-        'invalid',
-        `Checklist answer not saved:\nanswer.position: lies beyond the seam's length of ${seam.seam.length} mm; got ${answer.position}`,
-      );
-    }
-    // The same answer again changes nothing, so nothing is queued.
-    if (sameContent(round.checklist[item], answer)) return round;
-    const updated: RoundRecord = { ...round, checklist: { ...round.checklist, [item]: answer } };
+    const updated = change(round, seam);
+    if (!updated) return round;
     await rounds.put(updated);
-    if (seam.namespace === 'live') {
-      await tx
-        .objectStore('outbox')
-        .add(
-          entryForAdd(
-            outboxEntry(
-              'checklistAnswer',
-              answerId,
-              { seamId, round: roundNumber, item, answer, answeredAt: now },
-              now,
-            ),
-          ),
-        );
-    }
+    if (seam.namespace === 'live') await tx.objectStore('outbox').add(entryForAdd(entry));
     return updated;
   });
 }

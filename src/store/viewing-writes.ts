@@ -6,9 +6,9 @@ import { toProblems } from '../domain/model/schema-kit.js';
 import type { RoundRecord } from './api.js';
 import type { StoreContext } from './context.js';
 import { StoreError } from './errors.js';
-import { entryForAdd, outboxEntry } from './records.js';
+import { outboxEntry } from './records.js';
 import { sameContent } from './same-content.js';
-import { seamNotFound } from './seam-writes.js';
+import { changeRound } from './seam-writes.js';
 
 function checkConditions(input: ViewingConditions): ViewingConditions {
   const parsed = v.safeParse(viewingConditionsSchema, input, { abortPipeEarly: true });
@@ -25,34 +25,13 @@ export async function recordViewing(
 ): Promise<RoundRecord> {
   const conditions = checkConditions(input);
   const now = ctx.now();
-  const recordId = ctx.newId();
-  return ctx.conn.run(['seams', 'rounds', 'outbox'], 'readwrite', async (tx) => {
-    const seam = await tx.objectStore('seams').get(seamId);
-    if (!seam) throw seamNotFound(seamId);
-    const rounds = tx.objectStore('rounds');
-    const round = await rounds.get([seamId, roundNumber]);
-    if (!round)
-      throw new StoreError(
-        'notFound',
-        `Seam "${seamId}" has no round ${roundNumber}; start the round first.`,
-      );
-    if (sameContent(round.viewing, conditions)) return round;
-    const updated: RoundRecord = { ...round, viewing: conditions };
-    await rounds.put(updated);
-    if (seam.namespace === 'live') {
-      await tx
-        .objectStore('outbox')
-        .add(
-          entryForAdd(
-            outboxEntry(
-              'viewing',
-              recordId,
-              { seamId, round: roundNumber, conditions, recordedAt: now },
-              now,
-            ),
-          ),
-        );
-    }
-    return updated;
-  });
+  const entry = outboxEntry(
+    'viewing',
+    ctx.newId(),
+    { seamId, round: roundNumber, conditions, recordedAt: now },
+    now,
+  );
+  return changeRound(ctx, seamId, roundNumber, entry, (round) =>
+    sameContent(round.viewing, conditions) ? undefined : { ...round, viewing: conditions },
+  );
 }

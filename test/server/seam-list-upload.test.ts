@@ -3,6 +3,7 @@
 // or — by the supervisor's ticked decision — without the rows named.
 import { describe, expect, it } from 'vitest';
 import { parseSeamList } from '../../src/server/seams/seam-fields.js';
+import { postForm, REQUIRED_MAPPING } from './seam-list-forms.js';
 import { ORIGIN, testServer, type TestServer } from './support.js';
 
 // Line 3 holds a label quoted over two lines, so the row after it starts on line 5, and a blank line is skipped.
@@ -15,15 +16,6 @@ const LIST = [
   '',
   'U-4,Last one,filletT,8,300,S355',
 ].join('\r\n');
-
-const MAPPING = {
-  'map.id': 'Seam No',
-  'map.label': 'Description',
-  'map.jointType': 'Type',
-  'map.t1': 'T1 (mm)',
-  'map.length': 'Len',
-  'map.material': 'Grade',
-};
 
 /** The list as a spreadsheet on Windows saves it: Windows-1252, so "ä" and "ß" are single bytes. */
 function windows1252(text: string): Uint8Array<ArrayBuffer> {
@@ -38,18 +30,6 @@ async function upload(server: TestServer, bytes: Uint8Array<ArrayBuffer>, name: 
     method: 'POST',
     headers: { cookie: await server.supervisorCookie(), origin: ORIGIN },
     body: form,
-  });
-}
-
-async function post(server: TestServer, path: string, fields: Record<string, string>): Promise<Response> {
-  return server.request(path, {
-    method: 'POST',
-    headers: {
-      cookie: await server.supervisorCookie(),
-      origin: ORIGIN,
-      'content-type': 'application/x-www-form-urlencoded',
-    },
-    body: new URLSearchParams(fields).toString(),
   });
 }
 
@@ -82,10 +62,10 @@ describe('seam list files', () => {
     expect(mapText).toContain('yard-list.csv : 4 rows read.');
     expect(mapText).toContain('Träger Stoß 1');
 
-    const checked = await post(server, '/supervisor/seams/import/check', {
+    const checked = await postForm(server, '/supervisor/seams/import/check', {
       csv: LIST,
       fileName: 'yard-list.csv',
-      ...MAPPING,
+      ...REQUIRED_MAPPING,
     });
     expect(checked.status).toBe(200);
     const checkText = await words(checked);
@@ -95,12 +75,16 @@ describe('seam list files', () => {
     expect(await server.storage.listSeamIds()).toEqual([]);
 
     // Without the supervisor's decision, a list with a bad row keeps nothing.
-    const refused = await post(server, '/supervisor/seams/import', { csv: LIST, ...MAPPING });
+    const refused = await postForm(server, '/supervisor/seams/import', { csv: LIST, ...REQUIRED_MAPPING });
     expect(refused.status).toBe(400);
     expect(await words(refused)).toMatch(/Nothing was kept\. [^]*Line 5: [^]*plate1\.thickness/);
     expect(await server.storage.listSeamIds()).toEqual([]);
 
-    const kept = await post(server, '/supervisor/seams/import', { csv: LIST, ...MAPPING, soundOnly: 'yes' });
+    const kept = await postForm(server, '/supervisor/seams/import', {
+      csv: LIST,
+      ...REQUIRED_MAPPING,
+      soundOnly: 'yes',
+    });
     expect(kept.status).toBe(303);
     expect(decodeURIComponent(kept.headers.get('location') ?? '')).toContain(
       '3 seams imported. 1 row left out (line 5).',
@@ -123,11 +107,13 @@ describe('seam list files', () => {
     expect(headerOnly.status).toBe(400);
     expect(await words(headerOnly)).toContain('the list needs a header row and at least one seam row');
 
-    const withoutLabel = Object.fromEntries(Object.entries(MAPPING).filter(([k]) => k !== 'map.label'));
-    const unmapped = await post(server, '/supervisor/seams/import/check', { csv: LIST, ...withoutLabel });
+    const withoutLabel = Object.fromEntries(
+      Object.entries(REQUIRED_MAPPING).filter(([k]) => k !== 'map.label'),
+    );
+    const unmapped = await postForm(server, '/supervisor/seams/import/check', { csv: LIST, ...withoutLabel });
     expect(unmapped.status).toBe(400);
     expect(await words(unmapped)).toContain('choose the column that holds “Label”');
-    const forced = await post(server, '/supervisor/seams/import', {
+    const forced = await postForm(server, '/supervisor/seams/import', {
       csv: LIST,
       ...withoutLabel,
       soundOnly: 'yes',

@@ -4,19 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { verifyServerItem, type Assignment, type PullReply } from '../../src/protocol/index.js';
 import { guessMapping, parseSeamList } from '../../src/server/seams/seam-fields.js';
 import { inspectorCookie } from './review-seed.js';
-import { ORIGIN, testServer, type TestServer } from './support.js';
-
-async function post(server: TestServer, path: string, body: URLSearchParams, cookie?: string) {
-  return server.request(path, {
-    method: 'POST',
-    headers: {
-      cookie: cookie ?? (await server.supervisorCookie()),
-      origin: ORIGIN,
-      'content-type': 'application/x-www-form-urlencoded',
-    },
-    body: body.toString(),
-  });
-}
+import { postForm, REQUIRED_MAPPING } from './seam-list-forms.js';
+import { testServer } from './support.js';
 
 const LIST = [
   'Seam No;Description;Type;T1 (mm);Len;Grade;Quality;Welder;Dwg',
@@ -25,12 +14,7 @@ const LIST = [
 ].join('\n');
 
 const MAPPING: Record<string, string> = {
-  'map.id': 'Seam No',
-  'map.label': 'Description',
-  'map.jointType': 'Type',
-  'map.t1': 'T1 (mm)',
-  'map.length': 'Len',
-  'map.material': 'Grade',
+  ...REQUIRED_MAPPING,
   'map.level': 'Quality',
   'map.welder': 'Welder',
   'map.drawing': 'Dwg',
@@ -67,14 +51,14 @@ describe('seam lists', () => {
   it('imports every row with the mapping and assigns them; a faulty row keeps nothing and names the row', async () => {
     const server = await testServer();
     const tablet = await server.enrolDevice('Bay 7 tablet');
-    const map = await post(server, '/supervisor/seams/import/map', new URLSearchParams({ csv: LIST }));
+    const map = await postForm(server, '/supervisor/seams/import/map', new URLSearchParams({ csv: LIST }));
     expect(map.status).toBe(200);
     const mapHtml = await map.text();
     expect(mapHtml).toContain('2 rows read.');
     expect(mapHtml).toMatch(/<option value="Welder"\s+selected\s*>\s*Welder\s*<\/option>/);
 
     const bad = LIST.replace('S-101;Deck splice 2;butt;12;900', 'S-101;Deck splice 2;buttt;x;900');
-    const refused = await post(
+    const refused = await postForm(
       server,
       '/supervisor/seams/import',
       new URLSearchParams({ csv: bad, ...MAPPING, device: tablet.kid }),
@@ -86,7 +70,7 @@ describe('seam lists', () => {
     expect(refusedHtml).toMatch(/Line 3: [^<]*plate1\.thickness/);
     expect(await server.storage.getSeam('S-100')).toBeUndefined();
 
-    const done = await post(
+    const done = await postForm(
       server,
       '/supervisor/seams/import',
       new URLSearchParams({ csv: LIST, ...MAPPING, device: tablet.kid, note: 'Bow end first' }),
@@ -112,7 +96,7 @@ describe('seam lists', () => {
       drawing: 'D-7',
     });
     // The same list again: the ids exist, nothing is changed.
-    const again = await post(
+    const again = await postForm(
       server,
       '/supervisor/seams/import',
       new URLSearchParams({ csv: LIST, ...MAPPING }),
@@ -135,7 +119,7 @@ describe('seam lists', () => {
   it('sets up one seam with the form and assigns seams ticked on the Seams page', async () => {
     const server = await testServer();
     const tablet = await server.enrolDevice('Bay 2 tablet');
-    const made = await post(
+    const made = await postForm(
       server,
       '/supervisor/seams',
       new URLSearchParams({
@@ -156,9 +140,9 @@ describe('seam lists', () => {
     ).text();
     const id = /name="seam"\s+value="([^"]+)"\s+aria-label="Assign Web stiffener 4"/.exec(list)?.[1] ?? '';
     expect(id).not.toBe('');
-    const none = await post(server, '/supervisor/seams/assign', new URLSearchParams({ seam: id }));
+    const none = await postForm(server, '/supervisor/seams/assign', new URLSearchParams({ seam: id }));
     expect(none.status).toBe(400);
-    const assigned = await post(
+    const assigned = await postForm(
       server,
       '/supervisor/seams/assign',
       new URLSearchParams({ seam: id, device: tablet.kid }),
@@ -174,8 +158,9 @@ describe('seam lists', () => {
       '/supervisor/seams/import',
       '/supervisor/seams/assign',
     ])
-      expect((await post(server, path, new URLSearchParams({ label: 'x' }), inspector)).status, path).toBe(
-        403,
-      );
+      expect(
+        (await postForm(server, path, new URLSearchParams({ label: 'x' }), inspector)).status,
+        path,
+      ).toBe(403);
   });
 });

@@ -10,15 +10,17 @@ const KINDS = [
   { value: 'remote', label: 'Remote (borescope, camera)' },
 ] as const satisfies readonly { value: ViewingKind; label: string }[];
 
+interface ViewingForm {
+  readonly viewing: ViewingKind;
+  readonly illuminanceLx: number | undefined;
+  readonly distanceMm: number | undefined;
+  readonly angleDeg: number | undefined;
+  readonly lighting: string;
+  readonly aids: string;
+}
+
 /** The form's values: numbers may be left empty, words trimmed; only what was given is kept. */
-function conditionsOf(form: {
-  viewing: ViewingKind;
-  illuminanceLx: number | undefined;
-  distanceMm: number | undefined;
-  angleDeg: number | undefined;
-  lighting: string;
-  aids: string;
-}): ViewingConditions {
+function conditionsOf(form: ViewingForm): ViewingConditions {
   return {
     viewing: form.viewing,
     ...(form.illuminanceLx !== undefined ? { illuminanceLx: Math.round(form.illuminanceLx) } : {}),
@@ -40,8 +42,8 @@ export function ViewingPanel(props: {
 }) {
   const saved = props.round.viewing;
   const [editing, setEditing] = useState(false);
-  const [form, setForm] = useState({
-    viewing: saved?.viewing ?? ('direct' as ViewingKind),
+  const [form, setForm] = useState<ViewingForm>({
+    viewing: saved?.viewing ?? 'direct',
     illuminanceLx: saved?.illuminanceLx,
     distanceMm: saved?.distanceMm,
     angleDeg: saved?.angleDeg,
@@ -51,6 +53,11 @@ export function ViewingPanel(props: {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const onSave = props.onSave;
+  // Every field edits one key of the form the same way; each field below names only its key.
+  const bind = <K extends keyof ViewingForm>(key: K) => ({
+    value: form[key],
+    onChange: (value: ViewingForm[K]) => setForm({ ...form, [key]: value }),
+  });
   const summary = <p class="viewing-summary">{saved ? describeViewing(saved) : 'Not recorded yet.'}</p>;
   if (!onSave || !editing)
     return (
@@ -84,51 +91,27 @@ export function ViewingPanel(props: {
       }}
     >
       {summary}
-      <ChoiceGroup
-        legend="Viewing"
-        options={KINDS}
-        value={form.viewing}
-        onChange={(viewing) => setForm({ ...form, viewing })}
-      />
+      <ChoiceGroup legend="Viewing" options={KINDS} {...bind('viewing')} />
       <NumberField
         label="Illuminance on the surface"
         unit="lx"
         step={50}
         min={0}
         max={200_000}
-        value={form.illuminanceLx}
-        onChange={(illuminanceLx) => setForm({ ...form, illuminanceLx })}
+        {...bind('illuminanceLx')}
         hint="Measured with a light meter at the surface examined"
       />
-      <NumberField
-        label="Viewing distance"
-        unit="mm"
-        step={50}
-        min={0}
-        value={form.distanceMm}
-        onChange={(distanceMm) => setForm({ ...form, distanceMm })}
-      />
+      <NumberField label="Viewing distance" unit="mm" step={50} min={0} {...bind('distanceMm')} />
       <NumberField
         label="Viewing angle to the surface"
         unit="°"
         step={5}
         min={0}
         max={90}
-        value={form.angleDeg}
-        onChange={(angleDeg) => setForm({ ...form, angleDeg })}
+        {...bind('angleDeg')}
       />
-      <TextField
-        label="Lighting"
-        value={form.lighting}
-        onChange={(lighting) => setForm({ ...form, lighting })}
-        hint="e.g. daylight, hall lighting, hand lamp"
-      />
-      <TextField
-        label="Aids"
-        value={form.aids}
-        onChange={(aids) => setForm({ ...form, aids })}
-        hint="e.g. mirror, magnifier ×2, borescope"
-      />
+      <TextField label="Lighting" {...bind('lighting')} hint="e.g. daylight, hall lighting, hand lamp" />
+      <TextField label="Aids" {...bind('aids')} hint="e.g. mirror, magnifier ×2, borescope" />
       {error ? (
         <p class="error" role="alert">
           {error}

@@ -1,6 +1,7 @@
 // Supervisor operations shared by the JSON API and the web pages.
 import { canonicalJson, formatEnrolmentTicket, newEnrolmentCode, randomUuid } from '../../protocol/index.js';
 import { parseSeamFile, SEAM_FILE_FORMAT, type Seam } from '../../domain/index.js';
+import { accountWithoutHash } from '../auth/account-without-hash.js';
 import { tokenHash } from '../auth/tokens.js';
 import type { AppDeps } from '../deps.js';
 import { foldSeam } from '../grading/fold.js';
@@ -103,13 +104,7 @@ export async function inspectorAccount(deps: AppDeps, username: string): Promise
   if (!account) throw new HttpError(404, 'unknownInspector', `no account is named "${username}"`);
   if (account.role !== 'inspector')
     throw new HttpError(409, 'notInspector', `the account "${username}" is not an inspector's`);
-  return {
-    id: account.id,
-    username: account.username,
-    role: account.role,
-    mustChangePassword: account.mustChangePassword,
-    createdAt: account.createdAt,
-  };
+  return accountWithoutHash(account);
 }
 
 export async function assignSeam(

@@ -6,6 +6,7 @@ import { deleteCookie, getCookie, setCookie } from 'hono/cookie';
 import type { AppDeps, AppEnv } from '../deps.js';
 import { HttpError } from '../http/errors.js';
 import type { Account, Role } from '../storage/types.js';
+import { accountWithoutHash } from './account-without-hash.js';
 import { decoyHash, verifyPassword } from './password.js';
 import { newToken, tokenHash } from './tokens.js';
 
@@ -39,13 +40,7 @@ export async function checkLogin(deps: AppDeps, username: string, password: stri
     account?.passwordHash ?? (await decoyHash(deps.config.scryptCost)),
   );
   if (!account || !ok) return null;
-  return {
-    id: account.id,
-    username: account.username,
-    role: account.role,
-    mustChangePassword: account.mustChangePassword,
-    createdAt: account.createdAt,
-  };
+  return accountWithoutHash(account);
 }
 
 export async function startSession(deps: AppDeps, c: Context, account: Account): Promise<void> {
