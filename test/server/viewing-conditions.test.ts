@@ -1,6 +1,7 @@
 // Viewing and lighting conditions per round: sent by the tablet as version-2 records, judged on their own, folded
 // (a later record for the round corrects an earlier one, by the device's own order) and printed in the report in
 // place of the blanks, which stay only for a round without them.
+import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import {
   judgeRecord,
@@ -70,25 +71,34 @@ describe('viewing records', () => {
   });
 });
 
+/**
+ * A seam whose round 1 conditions were given and then corrected (650 lx in force), with a reading in round 1 and
+ * a round 2 with none, sent and graded.
+ */
+async function seamWithCorrectedViewing(server: TestServer) {
+  const device = await server.enrolDevice('Bay 4 tablet');
+  const seam = testSeam(undefined, { label: 'Hatch coaming butt' });
+  device.add('seamSetup', uuidv7(), bodies.seamSetup(seam));
+  device.add('round', uuidv7(), bodies.round(seam.id, 1));
+  device.add('viewing', uuidv7(), viewingBody(seam.id, 1, { ...DIRECT, illuminanceLx: 300 }));
+  const r = toeReading(seam.id, 160);
+  device.add('reading', r.id, bodies.reading(r));
+  // The correction comes later in the device's own order.
+  device.add('viewing', uuidv7(), viewingBody(seam.id, 1, DIRECT));
+  device.add('round', uuidv7(), bodies.round(seam.id, 2));
+  const sent = await device.send(server, await device.seal());
+  expect(sent.status).toBe(200);
+  expect((sent.body as { results: { status: string }[] }).results.map((x) => x.status)).toEqual(
+    Array(6).fill('accepted'),
+  );
+  await server.settle();
+  return { device, seam };
+}
+
 describe('viewing conditions in the report', () => {
   it('prints each round’s latest conditions and leaves blanks only for a round without them', async () => {
     const server = await testServer();
-    const device = await server.enrolDevice('Bay 4 tablet');
-    const seam = testSeam(undefined, { label: 'Hatch coaming butt' });
-    device.add('seamSetup', uuidv7(), bodies.seamSetup(seam));
-    device.add('round', uuidv7(), bodies.round(seam.id, 1));
-    device.add('viewing', uuidv7(), viewingBody(seam.id, 1, { ...DIRECT, illuminanceLx: 300 }));
-    const r = toeReading(seam.id, 160);
-    device.add('reading', r.id, bodies.reading(r));
-    // The correction comes later in the device's own order.
-    device.add('viewing', uuidv7(), viewingBody(seam.id, 1, DIRECT));
-    device.add('round', uuidv7(), bodies.round(seam.id, 2));
-    const sent = await device.send(server, await device.seal());
-    expect(sent.status).toBe(200);
-    expect((sent.body as { results: { status: string }[] }).results.map((x) => x.status)).toEqual(
-      Array(6).fill('accepted'),
-    );
-    await server.settle();
+    const { device, seam } = await seamWithCorrectedViewing(server);
 
     const text = await report(server, seam.id);
     expect(text).toContain(
@@ -108,5 +118,54 @@ describe('viewing conditions in the report', () => {
     const grade = await server.storage.getServerGrade(seam.id);
     expect(JSON.parse(grade?.summary ?? '{}')).toMatchObject({ readingCount: 1 });
     expect(((await device.pull(server, null)).body as PullReply).items).toEqual([]);
+  });
+});
+
+describe('viewing conditions in the CSV exports', () => {
+  it('give each reading its round’s conditions and each seam line those of the round its level comes from', async () => {
+    const server = await testServer();
+    const { device, seam } = await seamWithCorrectedViewing(server);
+    const csv = async (path: string) => {
+      const res = await server.request(`/supervisor/review/export/${path}?seam=${seam.id}`, {
+        headers: { cookie: await server.supervisorCookie() },
+      });
+      expect(res.status).toBe(200);
+      return Papa.parse<Record<string, string>>(await res.text(), { header: true, skipEmptyLines: true });
+    };
+    const columns = [
+      'viewing',
+      'illuminance (lx)',
+      'viewing distance (mm)',
+      'viewing angle (deg)',
+      'lighting',
+      'viewing aids',
+      'viewing corrected (times)',
+      'viewing recorded at UTC (device clock)',
+    ];
+    const inForce = ['direct', '650', '400', '45', 'hall lighting and hand lamp', 'magnifier ×2', '1', T0];
+
+    const readings = await csv('readings.csv');
+    expect(readings.meta.fields).toEqual(expect.arrayContaining(columns));
+    expect(readings.data.map((row) => [row['round'], ...columns.map((c) => row[c])])).toEqual([
+      ['1', ...inForce],
+    ]);
+
+    // The seam's line takes the round its level comes from: with the checklist open no round is graded, so the
+    // latest, round 2, whose conditions are not recorded yet and stay blank.
+    const before = await csv('seams.csv');
+    expect(before.meta.fields).toEqual(expect.arrayContaining(['viewing of round', ...columns]));
+    expect(before.data).toHaveLength(1);
+    const seamLine = (row: Record<string, string> | undefined) => [
+      row?.['graded round'],
+      row?.['viewing of round'],
+      ...columns.map((c) => row?.[c]),
+    ];
+    expect(seamLine(before.data[0])).toEqual(['', '2', ...columns.map(() => '')]);
+
+    device.add('viewing', uuidv7(), viewingBody(seam.id, 2, { viewing: 'remote', illuminanceLx: 1200 }));
+    expect((await device.send(server, await device.seal())).status).toBe(200);
+    await server.settle();
+    const after = await csv('seams.csv');
+    expect(seamLine(after.data[0])).toEqual(['', '2', 'remote', '1200', '', '', '', '', '0', T0]);
   });
 });

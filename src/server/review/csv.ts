@@ -1,11 +1,14 @@
 // CSV exports: every reading of a selection of seams, and one summary line per seam, with units in the headers
-// (values are in the stored units, mm and degrees; header names hold no commas). Written with papaparse; a text cell that a spreadsheet would
-// take for a formula (=, +, @ first, or - first with an operator after it) is prefixed with a quote; numbers stay
-// numbers, and ids that merely start with a dash (key ids are base64url) stay as they are.
+// (values are in the stored units: mm, degrees, lux; header names hold no commas) and the viewing and lighting
+// conditions of the reading's round, or the seam's graded round. Written with papaparse; a text cell that a
+// spreadsheet would take for a formula (=, +, @ first, or - first with an operator after it) is prefixed with a
+// quote; numbers stay numbers, and ids that merely start with a dash (key ids are base64url) stay as they are.
 import Papa from 'papaparse';
 import { PARAMETER_NAMES, PARAMETERS } from '../../domain/index.js';
+import type { RoundViewing } from '../grading/fold.js';
 import type { ReviewQueueRow } from '../storage/types.js';
 import type { ReadingLine } from './seam-detail.js';
+import { VIEWING_HEADERS, viewingByRound, viewingCells } from './viewing-columns.js';
 
 const unit = (u: string) => (u === 'deg' ? 'deg' : u);
 
@@ -35,6 +38,7 @@ const READING_HEADERS = [
   'calibrated on',
   'examiner',
   'qualification',
+  ...VIEWING_HEADERS,
   'recorded at UTC (device clock)',
   'device kid',
   'device name',
@@ -45,10 +49,16 @@ const READING_HEADERS = [
 type Cell = string | number | null;
 
 export function readingsCsv(
-  seams: readonly { id: string; label: string; readings: readonly ReadingLine[] }[],
+  seams: readonly {
+    id: string;
+    label: string;
+    readings: readonly ReadingLine[];
+    viewing: readonly RoundViewing[];
+  }[],
 ): string {
   const rows: Cell[][] = [];
   for (const seam of seams) {
+    const viewing = viewingByRound(seam.viewing);
     for (const l of seam.readings) {
       const r = l.reading;
       rows.push([
@@ -75,6 +85,7 @@ export function readingsCsv(
         r.instrument.calibratedOn ?? null,
         r.examiner?.name ?? null,
         r.examiner?.qualification ?? null,
+        ...viewingCells(viewing.get(r.round)),
         r.recordedAt,
         l.deviceKid,
         l.deviceName,
@@ -105,6 +116,8 @@ const SEAM_HEADERS = [
   'meets required',
   'graded round',
   'latest round',
+  'viewing of round',
+  ...VIEWING_HEADERS,
   'current readings',
   'borderline values',
   'unverified limit rows',
@@ -122,39 +135,52 @@ const SEAM_HEADERS = [
   'reviewed on every record',
 ] as const;
 
-export function seamsCsv(rows: readonly ReviewQueueRow[]): string {
+/**
+ * One line per seam. Its viewing conditions are those of the round its level comes from (the graded round, else
+ * the latest), named in 'viewing of round'; the readings export gives every round's.
+ */
+export function seamsCsv(
+  rows: readonly ReviewQueueRow[],
+  viewing: ReadonlyMap<string, readonly RoundViewing[]>,
+): string {
   const yesNo = (b: boolean | null) => (b === null ? null : b ? 'yes' : 'no');
-  const data = rows.map((r): Cell[] => [
-    r.seamId,
-    r.label,
-    r.namespace === 'demo' ? 'yes' : 'no',
-    r.tags.join('; '),
-    r.area,
-    r.drawing,
-    r.welder,
-    r.procedure,
-    r.edition,
-    r.requiredLevel,
-    r.state,
-    r.levelMet === 'belowD' ? 'below D' : r.levelMet,
-    yesNo(r.meetsRequired),
-    r.gradedRound,
-    r.latestRound,
-    r.readingCount,
-    r.borderlineCount,
-    r.unverifiedRows,
-    r.fatFlag,
-    yesNo(r.samplingAdequate),
-    r.deviceLevelMet === 'belowD' ? 'below D' : r.deviceLevelMet,
-    yesNo(r.gradeMismatch),
-    r.inspectedFirst,
-    r.inspectedLast,
-    r.lastReceivedAt,
-    r.decision?.outcome ?? null,
-    r.decision?.round ?? null,
-    r.decision?.decidedByName ?? null,
-    r.decision?.decidedAt ?? null,
-    yesNo(r.reviewed),
-  ]);
+  const data = rows.map((r): Cell[] => {
+    const round = r.gradedRound ?? r.latestRound;
+    const conditions = round === null ? undefined : viewingByRound(viewing.get(r.seamId) ?? []).get(round);
+    return [
+      r.seamId,
+      r.label,
+      r.namespace === 'demo' ? 'yes' : 'no',
+      r.tags.join('; '),
+      r.area,
+      r.drawing,
+      r.welder,
+      r.procedure,
+      r.edition,
+      r.requiredLevel,
+      r.state,
+      r.levelMet === 'belowD' ? 'below D' : r.levelMet,
+      yesNo(r.meetsRequired),
+      r.gradedRound,
+      r.latestRound,
+      round,
+      ...viewingCells(conditions),
+      r.readingCount,
+      r.borderlineCount,
+      r.unverifiedRows,
+      r.fatFlag,
+      yesNo(r.samplingAdequate),
+      r.deviceLevelMet === 'belowD' ? 'below D' : r.deviceLevelMet,
+      yesNo(r.gradeMismatch),
+      r.inspectedFirst,
+      r.inspectedLast,
+      r.lastReceivedAt,
+      r.decision?.outcome ?? null,
+      r.decision?.round ?? null,
+      r.decision?.decidedByName ?? null,
+      r.decision?.decidedAt ?? null,
+      yesNo(r.reviewed),
+    ];
+  });
   return Papa.unparse({ fields: [...SEAM_HEADERS], data }, { escapeFormulae: FORMULA, newline: '\r\n' });
 }

@@ -1,6 +1,8 @@
 // The CSV exports of a selection of seams (the queue's filters, or seams named one by one): readings and seam
-// summaries. Readings are read per seam with the same fold and left-out list as the grade, without grading again.
+// summaries. Readings are read per seam with the same fold and left-out list as the grade, without grading again;
+// the seam summaries fold each seam's records too, for the viewing conditions the queue's rows do not hold.
 import type { AppDeps } from '../deps.js';
+import { foldSeam, type RoundViewing } from '../grading/fold.js';
 import type { Device } from '../storage/types.js';
 import { parseReviewQuery } from './query.js';
 import { readingLines, type ReadingLine } from './seam-detail.js';
@@ -28,7 +30,12 @@ async function seamReadings(deps: AppDeps, seamId: string, devices: ReadonlyMap<
   ]);
   const review = reviewSeam(material, grade, { readings: 'columns', sensitivity: false, grade: false });
   const readings: ReadingLine[] = readingLines(review, material.records, devices);
-  return { id: seamId, label: review.folded.seam?.label ?? seamId, readings };
+  return {
+    id: seamId,
+    label: review.folded.seam?.label ?? seamId,
+    readings,
+    viewing: review.folded.viewing,
+  };
 }
 
 export async function readingsExport(deps: AppDeps, params: URLSearchParams): Promise<string> {
@@ -47,5 +54,7 @@ export async function seamsExport(deps: AppDeps, params: URLSearchParams): Promi
     limit: MAX_SELECTION,
   });
   const rows = named.length ? page.rows.filter((r) => named.includes(r.seamId)) : page.rows;
-  return seamsCsv(rows);
+  const viewing = new Map<string, readonly RoundViewing[]>();
+  for (const r of rows) viewing.set(r.seamId, foldSeam(await deps.storage.seamMaterial(r.seamId)).viewing);
+  return seamsCsv(rows, viewing);
 }
