@@ -18,8 +18,9 @@ import { completeChecklist } from '../support/seam-builder.js';
 import { collectPageErrors } from './support/chromium.js';
 import { waitForController } from './support/vitest/app-page.js';
 import { createSeam, openGaugeWithToeGauge, saveToeAngle, textbox } from './support/vitest/app-flows.js';
-import { SUPERVISOR, type YardServer } from './support/vitest/yard-server.js';
+import type { YardServer } from './support/vitest/yard-server.js';
 import { useBrowser } from './support/vitest/browser-test.js';
+import { signInAsSupervisor } from './support/vitest/supervisor-flows.js';
 
 const { current } = inject('e2eBuilds');
 const run = promisify(execFile);
@@ -80,11 +81,7 @@ describe('supervisor review in Chromium', () => {
     // The supervisor signs in, filters the queue and opens the tablet's seam.
     const desk = await context.newPage();
     const deskErrors = collectPageErrors(desk);
-    await desk.goto(`${yard.origin}/supervisor/login`);
-    await desk.getByLabel('Name').fill(SUPERVISOR.username);
-    await desk.getByLabel('Password').fill(SUPERVISOR.password);
-    await desk.getByRole('button', { name: 'Sign in' }).click();
-    await desk.getByRole('heading', { level: 1, name: 'Review queue' }).waitFor();
+    await signInAsSupervisor(desk, yard.origin);
     expect(await desk.locator('[data-flag="unreviewed"]').textContent()).toBe('(2)');
     await desk.getByLabel('Welder').selectOption('W-77');
     await desk.getByRole('button', { name: 'Apply' }).click();

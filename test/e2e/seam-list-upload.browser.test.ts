@@ -2,8 +2,8 @@
 // sees every row checked with its line before anything is kept, decides to leave the bad row out, and the sound
 // seams are imported and assigned to an inspector.
 import { describe, expect, inject, it } from 'vitest';
-import { SUPERVISOR } from './support/vitest/yard-server.js';
 import { useBrowser } from './support/vitest/browser-test.js';
+import { signInAsSupervisor } from './support/vitest/supervisor-flows.js';
 
 const { current } = inject('e2eBuilds');
 
@@ -26,11 +26,7 @@ describe('seam list upload in Chromium', () => {
     });
     expect(made.status).toBe(201);
     const { page: desk, errors } = await e2e.launch();
-    await desk.goto(`${yard.origin}/supervisor/login`);
-    await desk.getByLabel('Name').fill(SUPERVISOR.username);
-    await desk.getByLabel('Password').fill(SUPERVISOR.password);
-    await desk.getByRole('button', { name: 'Sign in' }).click();
-    await desk.getByRole('heading', { level: 1, name: 'Review queue' }).waitFor();
+    await signInAsSupervisor(desk, yard.origin);
 
     await desk.goto(`${yard.origin}/supervisor/seams`);
     await desk.getByLabel('Seam list file (CSV)').setInputFiles({

@@ -6,8 +6,8 @@ import { describe, expect, inject, it } from 'vitest';
 import { createTagDecoder, type LumaFrame } from '../../workers/tag-decode-core.js';
 import { zxingKitNode } from '../../workers/zxing-kit-node.js';
 import { testSeam } from '../server/records.js';
-import { SUPERVISOR } from './support/vitest/yard-server.js';
 import { useBrowser } from './support/vitest/browser-test.js';
+import { signInAsSupervisor } from './support/vitest/supervisor-flows.js';
 
 const { current } = inject('e2eBuilds');
 
@@ -53,11 +53,7 @@ describe('supervisor tag sheet in Chromium', () => {
       expect((await yard.admin('POST', '/assignments', { seamId, inspector: 'ines' })).status).toBe(201);
 
     const { page: desk, errors } = await e2e.launch();
-    await desk.goto(`${yard.origin}/supervisor/login`);
-    await desk.getByLabel('Name').fill(SUPERVISOR.username);
-    await desk.getByLabel('Password').fill(SUPERVISOR.password);
-    await desk.getByRole('button', { name: 'Sign in' }).click();
-    await desk.getByRole('heading', { level: 1, name: 'Review queue' }).waitFor();
+    await signInAsSupervisor(desk, yard.origin);
 
     // From the Seams page: the inspector chosen, the sheet of their seams.
     await desk.goto(`${yard.origin}/supervisor/seams`);

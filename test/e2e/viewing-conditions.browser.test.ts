@@ -5,8 +5,8 @@ import type { Page } from 'playwright-core';
 import { describe, expect, inject, it } from 'vitest';
 import { waitForController } from './support/vitest/app-page.js';
 import { createSeam, textbox } from './support/vitest/app-flows.js';
-import { SUPERVISOR } from './support/vitest/yard-server.js';
 import { useBrowser } from './support/vitest/browser-test.js';
+import { signInAsSupervisor } from './support/vitest/supervisor-flows.js';
 
 const { current } = inject('e2eBuilds');
 
@@ -62,11 +62,7 @@ describe('viewing conditions in Chromium', () => {
     expect(errors).toEqual([]);
 
     const desk = await context.newPage();
-    await desk.goto(`${yard.origin}/supervisor/login`);
-    await desk.getByLabel('Name').fill(SUPERVISOR.username);
-    await desk.getByLabel('Password').fill(SUPERVISOR.password);
-    await desk.getByRole('button', { name: 'Sign in' }).click();
-    await desk.getByRole('heading', { level: 1, name: 'Review queue' }).waitFor();
+    await signInAsSupervisor(desk, yard.origin);
     await desk.goto(`${yard.origin}/supervisor/review/report?seam=${encodeURIComponent(seamId)}`);
     const viewing = desk.locator('ul.viewing li');
     expect(await viewing.count()).toBe(1);

@@ -9,6 +9,7 @@ import {
   RECORD_SCHEMA_VERSION,
   type PullReply,
 } from '../../src/protocol/index.js';
+import { VIEWING_HEADERS } from '../../src/server/review/viewing-columns.js';
 import { uuidv7 } from '../../src/store/ids.js';
 import { bodies, T0, testSeam, toeReading } from './records.js';
 import { testServer, type TestServer } from './support.js';
@@ -132,16 +133,7 @@ describe('viewing conditions in the CSV exports', () => {
       expect(res.status).toBe(200);
       return Papa.parse<Record<string, string>>(await res.text(), { header: true, skipEmptyLines: true });
     };
-    const columns = [
-      'viewing',
-      'illuminance (lx)',
-      'viewing distance (mm)',
-      'viewing angle (deg)',
-      'lighting',
-      'viewing aids',
-      'viewing corrected (times)',
-      'viewing recorded at UTC (device clock)',
-    ];
+    const columns = [...VIEWING_HEADERS];
     const inForce = ['direct', '650', '400', '45', 'hall lighting and hand lamp', 'magnifier ×2', '1', T0];
 
     const readings = await csv('readings.csv');
