@@ -1,27 +1,19 @@
 // The install hint and the storage status, mounted alone on a test page (test/e2e/fixtures/components) and
 // driven in Chromium: with the browser's own answers, and with the answers other browsers give (an install
 // event, a refused or missing persistent-storage API), which the tests stage before the page loads.
-import { afterEach, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
+import { afterEach, beforeEach, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { collectPageErrors } from './support/chromium.js';
-import type { StaticServer } from './support/static-server.js';
-import { useBrowser } from './support/vitest/browser-test.js';
+import { useSharedBrowser } from './support/vitest/browser-test.js';
 
 const { components } = inject('e2eBuilds');
 
-const e2e = useBrowser({ per: 'file' });
-let server: StaticServer;
-let context: BrowserContext;
+const shared = useSharedBrowser(components.dir);
 let page: Page;
 let errors: string[];
 
-beforeAll(async () => {
-  server = await e2e.serveStatic(components.dir);
-  ({ context } = await e2e.launch());
-});
-
 beforeEach(async () => {
-  page = await context.newPage();
+  page = await shared.context.newPage();
   errors = collectPageErrors(page);
 });
 
@@ -34,14 +26,14 @@ const storageStatus = () => page.getByRole('region', { name: 'Storage on this de
 
 describe('InstallHint', () => {
   it('tells how to install from the browser menu when the browser offers no install event', async () => {
-    await page.goto(server.origin);
+    await page.goto(shared.server.origin);
     const install = page.getByRole('region', { name: 'Install' });
     await install.getByText('open the browser menu and choose Install app').waitFor();
     expect(await install.getByRole('button').count()).toBe(0);
   });
 
   it('turns the install event into a button that opens the browser’s install prompt', async () => {
-    await page.goto(server.origin);
+    await page.goto(shared.server.origin);
     await page.evaluate(() => {
       const event = new Event('beforeinstallprompt', { cancelable: true });
       const calls: string[] = [];
@@ -66,7 +58,7 @@ describe('InstallHint', () => {
   });
 
   it('falls back to the menu hint when the user dismisses the prompt', async () => {
-    await page.goto(server.origin);
+    await page.goto(shared.server.origin);
     await page.evaluate(() => {
       const event = new Event('beforeinstallprompt', { cancelable: true });
       Object.assign(event, {
@@ -82,7 +74,7 @@ describe('InstallHint', () => {
 
 describe('StorageStatus', () => {
   it('reports Chromium’s own answer to persist() and the space used', async () => {
-    await page.goto(server.origin);
+    await page.goto(shared.server.origin);
     const status = storageStatus();
     await page.waitForFunction(() =>
       document.querySelector('[data-protection]:not([data-protection="checking"])'),
@@ -106,7 +98,7 @@ describe('StorageStatus', () => {
       Object.defineProperty(StorageManager.prototype, 'persisted', { value: () => Promise.resolve(false) });
       Object.defineProperty(StorageManager.prototype, 'persist', { value: () => Promise.resolve(false) });
     });
-    await page.goto(server.origin);
+    await page.goto(shared.server.origin);
     await storageStatus().getByText('Not yet protected').waitFor();
     await page.getByRole('button', { name: 'Keep Beadbook’s data on this device' }).click();
     await storageStatus().getByText('Not protected: the browser declined').waitFor();
@@ -119,7 +111,7 @@ describe('StorageStatus', () => {
     await page.addInitScript(() => {
       Object.defineProperty(StorageManager.prototype, 'persisted', { value: () => Promise.resolve(true) });
     });
-    await page.goto(server.origin);
+    await page.goto(shared.server.origin);
     await storageStatus().getByText('Protected: the browser keeps Beadbook’s data').waitFor();
     expect(await page.getByRole('button', { name: 'Keep Beadbook’s data on this device' }).count()).toBe(0);
   });
@@ -128,7 +120,7 @@ describe('StorageStatus', () => {
     await page.addInitScript(() => {
       Object.defineProperty(Navigator.prototype, 'storage', { get: () => undefined });
     });
-    await page.goto(server.origin);
+    await page.goto(shared.server.origin);
     await storageStatus().getByText('This browser cannot protect stored data').waitFor();
     expect(await storageStatus().getAttribute('data-protection')).toBe('unsupported');
     expect(await page.getByRole('button', { name: 'Keep Beadbook’s data on this device' }).count()).toBe(0);

@@ -5,7 +5,7 @@ import { mkdtemp } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
-import { afterAll, afterEach } from 'vitest';
+import { afterAll, afterEach, beforeAll } from 'vitest';
 import {
   collectPageErrors,
   firstPage,
@@ -90,6 +90,44 @@ export function useBrowser(options: UseBrowserOptions = {}): BrowserTest {
       const dir = await mkdtemp(join(tmpdir(), prefix));
       dirs.push(dir);
       return dir;
+    },
+  };
+}
+
+export interface SharedBrowser {
+  readonly server: StaticServer;
+  readonly context: BrowserContext;
+  readonly page: Page;
+  readonly errors: string[];
+}
+
+/**
+ * For files whose tests all use one server and one browser: `dir` served and Chromium launched before the first
+ * test, both closed after the last. Read the handles inside tests (or later hooks), once they exist.
+ */
+export function useSharedBrowser(dir: string): SharedBrowser {
+  const e2e = useBrowser({ per: 'file' });
+  let started: { server: StaticServer; run: BrowserRun } | undefined;
+  beforeAll(async () => {
+    const server = await e2e.serveStatic(dir);
+    started = { server, run: await e2e.launch() };
+  });
+  const get = () => {
+    if (!started) throw new Error('the shared browser is started in beforeAll: read it inside a test');
+    return started;
+  };
+  return {
+    get server() {
+      return get().server;
+    },
+    get context() {
+      return get().run.context;
+    },
+    get page() {
+      return get().run.page;
+    },
+    get errors() {
+      return get().run.errors;
     },
   };
 }
