@@ -54,6 +54,9 @@ describe('viewing conditions in Chromium', () => {
     await page.getByText(corrected).waitFor();
 
     await nav(page, 'Outbox');
+    // The Outbox screen shows "Loading…" until it has read the outbox: count once the list is there (the seam
+    // set-up, its first round and the two viewing records).
+    await expect.poll(() => page.locator('.outbox-count').textContent()).toBe('4');
     expect(await page.getByText('Viewing conditions').count()).toBe(2);
     await page.getByRole('button', { name: 'Send now' }).click();
     await expect.poll(() => page.locator('.outbox-count').textContent(), { timeout: 30_000 }).toBe('0');
