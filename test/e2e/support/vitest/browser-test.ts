@@ -42,8 +42,8 @@ export interface BrowserTest {
 
 export interface UseBrowserOptions {
   /**
-   * 'test' (the default) closes everything after each test; 'file' keeps one browser and server for all the
-   * tests of the file, for files whose tests only read what a single launch set up.
+   * 'test' (the default) closes everything after each test; 'file' after the file's last test, for what a file
+   * starts in `beforeAll` (see `useSharedBrowser`).
    */
   readonly per?: 'test' | 'file';
 }
@@ -59,9 +59,19 @@ export function useBrowser(options: UseBrowserOptions = {}): BrowserTest {
     contexts = [];
     servers = [];
     dirs = [];
-    for (const context of openContexts.reverse()) await context.close();
-    for (const server of openServers.reverse()) await server.close();
-    for (const dir of ownDirs) await removeProfileDir(dir);
+    // Every step is tried even after one fails: a Chromium left running would hold a core the next file needs.
+    const failures: unknown[] = [];
+    const attempt = async (step: () => Promise<void>) => {
+      try {
+        await step();
+      } catch (error) {
+        failures.push(error);
+      }
+    };
+    for (const context of openContexts.reverse()) await attempt(() => context.close());
+    for (const server of openServers.reverse()) await attempt(() => server.close());
+    for (const dir of ownDirs) await attempt(() => removeProfileDir(dir));
+    if (failures.length > 0) throw failures[0];
   };
   if (options.per === 'file') afterAll(teardown);
   else afterEach(teardown);
