@@ -5,6 +5,7 @@
 import { performance } from 'node:perf_hooks';
 import Papa from 'papaparse';
 import { BUILT_IN_CRITERIA, gradeSeam, type Seam, type SeamFile } from '../src/domain/index.js';
+import { nodeHasher } from '../src/cli/node-hasher.js';
 import { importTable, MAPPING_FORMAT, type ImportMapping } from '../src/domain/import/index.js';
 import { extractSlice, fitLine, importProfiles } from '../src/domain/profile/index.js';
 
@@ -83,7 +84,8 @@ for (let run = 0; run <= RUNS; run++) {
   const p = time(() => Papa.parse(text));
   let gradeT = 0;
   const i = time(() => {
-    const o = importTable(bytes, { mapping: MAPPING, context });
+    // Hashed as the command line hashes (node:crypto); the worker uses WebCrypto, the JS fallback is benched below.
+    const o = importTable(bytes, { mapping: MAPPING, context, hasher: nodeHasher() });
     if (o.kind !== 'read') throw new Error(`bench table refused: ${o.refusal.message}`);
     readings = o.readings.length;
     const file: SeamFile = {

@@ -129,12 +129,17 @@ interface RowAccumulator {
   readonly shortCounted: (number[] | undefined)[];
 }
 
+/** The margin relative to the governing limit (Infinity when unlimited): how close to failing an entry is. */
+function relativeMargin(cols: GradeColumns, e: number, set: LimitSet, info: RowInfo): number {
+  const margin = cols.margin[e] as number;
+  const scale = Math.abs(set.values[info.governingIndex] as number);
+  return Number.isNaN(margin) ? Infinity : scale > 0 && Number.isFinite(scale) ? margin / scale : margin;
+}
+
 function keyOf(cols: GradeColumns, e: number, r: Reading, ctx: SeamContext): SpotKey {
   const set = ctx.limitSets[cols.limitSet[e] as number] as LimitSet;
   const info = ctx.rows[set.rowIndex] as RowInfo;
-  const margin = cols.margin[e] as number;
-  const scale = Math.abs(set.values[info.governingIndex] as number);
-  const rel = Number.isNaN(margin) ? Infinity : scale > 0 && Number.isFinite(scale) ? margin / scale : margin;
+  const rel = relativeMargin(cols, e, set, info);
   return { rank: cols.rank[e] as number, rel, position: r.position ?? r.start ?? 0, readingId: r.id };
 }
 
@@ -169,11 +174,19 @@ function accumulate(
     }
     acc.count++;
     if (rank < acc.rank) acc.rank = rank;
-    // Cheap pre-check: only build the full key when this entry could be the worst.
-    if (rank <= acc.worstKey.rank) {
-      const key = keyOf(cols, e, r, ctx);
-      if (isWorse(key, acc.worstKey)) {
-        acc.worstKey = key;
+    // Only an entry that could be the worst gets its key built, and only a worse one keeps it (isWorse, unrolled).
+    const w = acc.worstKey;
+    if (rank < w.rank) {
+      acc.worstKey = keyOf(cols, e, r, ctx);
+      acc.worstEntry = e;
+    } else if (rank === w.rank) {
+      const rel = relativeMargin(cols, e, set, acc.info);
+      const position = r.position ?? r.start ?? 0;
+      if (
+        rel < w.rel ||
+        (rel === w.rel && (position < w.position || (position === w.position && r.id < w.readingId)))
+      ) {
+        acc.worstKey = { rank, rel, position, readingId: r.id };
         acc.worstEntry = e;
       }
     }

@@ -4,9 +4,10 @@
 // parseSeamFile.
 import { PARAMETERS, type ParameterName } from '../model/parameters.js';
 import type { Reading, Seam, Values } from '../model/seam-file.js';
-import { plainNumber, readCell } from './cells.js';
+import { readCell } from './cells.js';
 import type { CompiledMapping, CompiledValue } from './compile-mapping.js';
 import type { ImportMapping } from './mapping.js';
+import type { RowCells } from './row-cells.js';
 
 export interface ImportContext {
   /** Names this import in each reading's source; at most 40 characters so reading ids stay within 64. */
@@ -66,6 +67,8 @@ export class RowReader {
   private readonly round: number;
   private readonly toe1: NonNullable<Reading['toe']>;
   private readonly toe2: NonNullable<Reading['toe']>;
+  private readonly decimal: '.' | ',';
+  private readonly toeByRaw = new Map<string, 0 | 1 | 2>();
 
   constructor(
     private readonly compiled: CompiledMapping,
@@ -73,6 +76,7 @@ export class RowReader {
     private readonly ctx: ImportContext,
   ) {
     this.sampling = mapping.sampling ?? 'atPitch';
+    this.decimal = mapping.decimal ?? '.';
     this.side = mapping.side ?? 'face';
     const inst = mapping.instrument;
     this.instrument = {
@@ -88,22 +92,24 @@ export class RowReader {
   }
 
   /** Appends the row's readings to `out`, or returns why the row is set aside (then `out` is untouched). */
-  read(cells: readonly string[], line: number, out: Reading[]): RowOutcome {
+  read(row: RowCells, line: number, out: Reading[]): RowOutcome {
     const c = this.compiled;
-    if (cells.length !== c.width) {
-      const extraEmpty = cells.length > c.width && cells.slice(c.width).every((x) => x.trim() === '');
+    const decimal = this.decimal;
+    if (row.count !== c.width) {
+      let extraEmpty = row.count > c.width;
+      for (let i = c.width; extraEmpty && i < row.count; i++) extraEmpty = row.text(i).trim() === '';
       if (!extraEmpty) {
         return {
           ok: false,
           code: 'fields',
-          reason: `has ${cells.length} field${cells.length === 1 ? '' : 's'} where the table has ${c.width}`,
+          reason: `has ${row.count} field${row.count === 1 ? '' : 's'} where the table has ${c.width}`,
         };
       }
     }
-    const posRaw = cells[c.position.column] ?? '';
-    let posValue = plainNumber(posRaw, this.mapping.decimal ?? '.');
+    let posValue = row.plainNumber(c.position.column, decimal);
     if (posValue !== posValue) {
-      const posCell = readCell(posRaw, this.mapping.decimal ?? '.');
+      const posRaw = row.text(c.position.column);
+      const posCell = readCell(posRaw, decimal);
       if (posCell.kind !== 'number') {
         return {
           ok: false,
@@ -124,9 +130,15 @@ export class RowReader {
     }
     let rowPlate: 1 | 2 | 0 = this.mapping.toe?.plate ?? 0;
     if (c.toeColumn) {
-      const code = (cells[c.toeColumn.column] ?? '').trim().toLowerCase();
-      const plate = c.toeCodes.get(code);
+      const raw = row.text(c.toeColumn.column);
+      // Most files repeat two or three codes: each raw spelling is normalised once.
+      let plate = this.toeByRaw.get(raw);
+      if (plate === undefined) {
+        plate = c.toeCodes.get(raw.trim().toLowerCase()) ?? 0;
+        if (this.toeByRaw.size < 64) this.toeByRaw.set(raw, plate);
+      }
       if (!plate) {
+        const code = raw.trim().toLowerCase();
         return {
           ok: false,
           code: 'toe',
@@ -139,15 +151,14 @@ export class RowReader {
     let slot0: Partial<Record<ParameterName, number>> | null = null;
     let slot1: Partial<Record<ParameterName, number>> | null = null;
     let slot2: Partial<Record<ParameterName, number>> | null = null;
-    const decimal = this.mapping.decimal ?? '.';
     let count = 0;
     let hasHeight = false;
     let hasWidth = false;
     let legs = 0;
     for (const v of c.values) {
-      const raw = cells[v.column] ?? '';
-      let num = plainNumber(raw, decimal);
+      let num = row.plainNumber(v.column, decimal);
       if (num !== num) {
+        const raw = row.text(v.column);
         const cell = readCell(raw, decimal);
         if (cell.kind === 'empty') continue;
         if (cell.kind !== 'number') {
