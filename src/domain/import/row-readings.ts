@@ -68,6 +68,7 @@ export class RowReader {
   private readonly toe1: NonNullable<Reading['toe']>;
   private readonly toe2: NonNullable<Reading['toe']>;
   private readonly decimal: '.' | ',';
+  private readonly idPrefix: string;
   private readonly toeByRaw = new Map<string, 0 | 1 | 2>();
 
   constructor(
@@ -77,6 +78,7 @@ export class RowReader {
   ) {
     this.sampling = mapping.sampling ?? 'atPitch';
     this.decimal = mapping.decimal ?? '.';
+    this.idPrefix = `${ctx.importId}-`;
     this.side = mapping.side ?? 'face';
     const inst = mapping.instrument;
     this.instrument = {
@@ -195,32 +197,33 @@ export class RowReader {
       };
     }
     if (legs === 1) return { ok: false, code: 'pairing', reason: 'has one leg length without the other' };
-    // A plain literal, then the optional fields: spreading per row made every reading a slow dictionary object.
-    const make = (suffix: string, values: Values, toe: Reading['toe']): Reading => {
-      const r: { -readonly [K in keyof Reading]: Reading[K] } = {
-        id: `${this.ctx.importId}-${line}${suffix}`,
-        round: this.round,
-        position,
-        sampling: this.sampling,
-        values,
-        instrument: this.instrument,
-        source: this.source,
-        recordedAt: this.ctx.recordedAt,
-      };
-      if (toe) r.toe = toe;
-      else r.side = this.side;
-      if (this.ctx.seam) r.seamId = this.ctx.seam.id;
-      if (values.linearMisalignment !== undefined && this.mapping.misalignmentBasis) {
-        r.misalignmentBasis = this.mapping.misalignmentBasis;
-      }
-      if (this.ctx.examiner) r.examiner = this.ctx.examiner;
-      if (this.ctx.device) r.device = this.ctx.device;
-      return r;
-    };
-    if (slot1) out.push(make('a', slot1, this.toe1));
-    if (slot2) out.push(make('b', slot2, this.toe2));
-    if (slot0) out.push(make('s', slot0, undefined));
+    if (slot1) out.push(this.reading(`${line}a`, position, slot1, this.toe1));
+    if (slot2) out.push(this.reading(`${line}b`, position, slot2, this.toe2));
+    if (slot0) out.push(this.reading(`${line}s`, position, slot0, undefined));
     return ACCEPTED;
+  }
+
+  // A plain literal, then the optional fields: spreading per row made every reading a slow dictionary object.
+  private reading(idTail: string, position: number, values: Values, toe: Reading['toe']): Reading {
+    const r: { -readonly [K in keyof Reading]: Reading[K] } = {
+      id: this.idPrefix + idTail,
+      round: this.round,
+      position,
+      sampling: this.sampling,
+      values,
+      instrument: this.instrument,
+      source: this.source,
+      recordedAt: this.ctx.recordedAt,
+    };
+    if (toe) r.toe = toe;
+    else r.side = this.side;
+    if (this.ctx.seam) r.seamId = this.ctx.seam.id;
+    if (values.linearMisalignment !== undefined && this.mapping.misalignmentBasis) {
+      r.misalignmentBasis = this.mapping.misalignmentBasis;
+    }
+    if (this.ctx.examiner) r.examiner = this.ctx.examiner;
+    if (this.ctx.device) r.device = this.ctx.device;
+    return r;
   }
 }
 

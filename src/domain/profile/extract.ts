@@ -15,6 +15,7 @@
 // Fit quality q = 1 − (RMS residual of all fitted points about their plate lines and toe circles) / 0.05 mm,
 // clipped to [0, 1], and 0 when a plate or toe could not be fitted. Slices with q < 0.6 are flagged.
 import { fitCirclePratt, fitLineTrimmed, lineFromSums, sseFromSums, type Circle, type Line } from './fits.js';
+import { heightAboveChord, scanWeld } from './weld-scan.js';
 
 export const QUALITY_TOLERANCE_MM = 0.05;
 export const QUALITY_THRESHOLD = 0.6;
@@ -27,6 +28,7 @@ const TAU_MIN = 0.005;
 const OUTER_SHARE = 0.2;
 const MIN_PLATE_POINTS = 8;
 const MIN_TOE_POINTS = 4;
+const PLATE_SAMPLE = 64;
 const RAD = 180 / Math.PI;
 
 export interface ToeGeometry {
@@ -82,7 +84,8 @@ function plateSide(
   if (outer * 2 >= n) return 'too few points for two plates and a weld';
   const from = dir === 1 ? 0 : n - outer;
   const to = dir === 1 ? outer : n;
-  const fit = fitLineTrimmed(x, z, from, to, TAU_MIN / 4);
+  // A first estimate from about 64 points of the outer part; the walk below refits over every accepted point.
+  const fit = fitLineTrimmed(x, z, from, to, TAU_MIN / 4, Math.max(1, Math.floor(outer / PLATE_SAMPLE)));
   if (!fit) return 'plate line could not be fitted';
   const sigma = fit.rms;
   const tau = Math.max(4 * sigma, TAU_MIN);
@@ -150,14 +153,18 @@ interface ToeFit {
   readonly ok: boolean;
 }
 
-/** The toe on one side: steepest point, toe circle, cap circle, flank angle. `dir` +1 for plate 1's toe. */
+/**
+ * The toe on one side: toe circle, cap circle, flank angle, from the steepest point (and its slope) that scanWeld
+ * found between the departure and the crown. `dir` +1 for plate 1's toe.
+ */
 function toeOf(
   x: ArrayLike<number>,
   z: ArrayLike<number>,
   side: PlateSide,
   crown: number,
+  steep: number,
+  best: number,
   dir: 1 | -1,
-  k: number,
   problems: string[],
   label: string,
 ): ToeFit {
@@ -166,20 +173,6 @@ function toeOf(
   const nz = 1 / Math.hypot(1, line.b);
   const ux = 1 / Math.hypot(1, line.b);
   const uz = line.b / Math.hypot(1, line.b);
-  // Steepest point between the departure and the crown, slope measured in the plate's frame.
-  let steep = side.departure;
-  let best = -Infinity;
-  for (let i = side.departure; i * dir < crown * dir; i += dir) {
-    const p = i - k * dir;
-    const q = i + k * dir;
-    const rp = (z[p] as number) - at(line, x[p] as number);
-    const rq = (z[q] as number) - at(line, x[q] as number);
-    const s = (rq - rp) / (((x[q] as number) - (x[p] as number)) * dir);
-    if (s > best) {
-      best = s;
-      steep = i;
-    }
-  }
   const slopeAngle = Math.atan(best) * RAD;
   // Toe transition: from where the points first rise off the line to the steepest point.
   const tauLow = Math.max(2 * side.sigma, TAU_MIN / 5);
@@ -311,37 +304,20 @@ function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run:
   const right = plateSide(x, z, n, -1, run);
   if (typeof right === 'string') return fail(`plate 2: ${right}`, left.sigma);
   if (left.departure >= right.departure) return fail('no weld found between the plates', left.sigma);
-  // Crown: highest point above the chord between the departures.
-  const xa = x[left.departure] as number;
-  const za = at(left.line, xa);
-  const xb = x[right.departure] as number;
-  const zb = at(right.line, xb);
-  const slope = (zb - za) / (xb - xa);
-  let crown = left.departure;
-  let top = -Infinity;
-  for (let i = left.departure; i <= right.departure; i++) {
-    const h = (z[i] as number) - za - slope * ((x[i] as number) - xa);
-    if (h > top) {
-      top = h;
-      crown = i;
-    }
-  }
   const sigma = Math.max(left.sigma, right.sigma);
   const dx = ((x[n - 1] as number) - (x[0] as number)) / (n - 1);
   const k = sigma > 0.003 ? Math.max(1, Math.round(0.1 / dx)) : 1;
+  const scan = scanWeld(x, z, n, left.departure, right.departure, left.line, right.line, k);
+  const crown = scan.crown;
   if (crown - left.departure <= k || right.departure - crown <= k)
     return fail('the weld is too narrow to find its toes', sigma);
-  const t1 = toeOf(x, z, left, crown, 1, k, problems, 'toe on plate 1');
-  const t2 = toeOf(x, z, right, crown, -1, k, problems, 'toe on plate 2');
+  const t1 = toeOf(x, z, left, crown, scan.steep1, scan.slope1, 1, problems, 'toe on plate 1');
+  const t2 = toeOf(x, z, right, crown, scan.steep2, scan.slope2, -1, problems, 'toe on plate 2');
   // Height above the chord joining the toes, width between them.
-  const cdx = t2.geometry.x - t1.geometry.x;
-  const cdz = t2.geometry.z - t1.geometry.z;
-  const len = Math.hypot(cdx, cdz);
-  let h = 0;
-  for (let i = left.departure; i <= right.departure; i++) {
-    const d = (((x[i] as number) - t1.geometry.x) * -cdz + ((z[i] as number) - t1.geometry.z) * cdx) / len;
-    if (d > h) h = d;
-  }
+  const { x: x1, z: z1 } = t1.geometry;
+  const { x: x2, z: z2 } = t2.geometry;
+  const len = Math.hypot(x2 - x1, z2 - z1);
+  const h = heightAboveChord(x, z, left.departure, right.departure, scan, x1, z1, x2, z2);
   const xm = (t1.geometry.x + t2.geometry.x) / 2;
   const e = at(right.line, xm) - at(left.line, xm);
   const beta = (Math.atan(left.line.b) - Math.atan(right.line.b)) * RAD;

@@ -78,7 +78,8 @@ export function sseFromSums(
 /**
  * Trimmed least squares: fit, then refit over the points within max(3·rms, floor) of the line, twice. Robust to
  * spatter, dropouts and the odd spike, which a scanner's plate segment may hold. The scatter comes from the sums
- * in closed form, so each round is one pass over the points.
+ * in closed form, so each round is one pass over the points. With `stride` > 1 only every stride-th point is
+ * used: a first estimate that the caller refines over all the points.
  */
 export function fitLineTrimmed(
   x: ArrayLike<number>,
@@ -86,6 +87,7 @@ export function fitLineTrimmed(
   from: number,
   to: number,
   floor: number,
+  stride = 1,
 ): { line: Line; rms: number; inliers: number } | null {
   const x0 = x[from] as number;
   const z0 = z[from] as number;
@@ -102,7 +104,7 @@ export function fitLineTrimmed(
       n = 0;
     const a = line?.a ?? 0;
     const b = line?.b ?? 0;
-    for (let i = from; i < to; i++) {
+    for (let i = from; i < to; i += stride) {
       const xa = x[i] as number;
       const za = z[i] as number;
       if (line) {
@@ -120,9 +122,12 @@ export function fitLineTrimmed(
     }
     const next = lineFromSums(n, sx, sz + n * z0, sxx, sxz + sx * z0, x0);
     if (!next) break;
+    // A trimming round that dropped no point refits the same set: every further round would repeat it.
+    const kept = pass > 0 && n === inliers && n === Math.ceil((to - from) / stride);
     line = next;
     inliers = n;
     rms = Math.sqrt(sseFromSums(n, sx, sz, sxx, sxz, szz, x0, z0, next) / n);
+    if (kept) break;
   }
   return line ? { line, rms, inliers } : null;
 }
