@@ -135,9 +135,11 @@ function plateSide(
   let undercut = 0;
   let i = departure;
   while (i !== end && i * dir < n * dir) {
-    const r = (z[i] as number) - a - b * (x[i] as number);
-    if (r > tau) break;
-    if (-r > undercut) undercut = -r;
+    // Depth below the line, taken before the test that ends the dip: code that only a rare slice reaches made the
+    // optimised walk fall back to the interpreter over and over.
+    const below = a + b * (x[i] as number) - (z[i] as number);
+    if (below > undercut) undercut = below;
+    if (below < -tau) break;
     i += dir;
   }
   if (undercut <= tau) undercut = 0;
@@ -169,10 +171,11 @@ function toeOf(
   label: string,
 ): ToeFit {
   const { line } = side;
-  const nx = -line.b / Math.hypot(1, line.b);
-  const nz = 1 / Math.hypot(1, line.b);
-  const ux = 1 / Math.hypot(1, line.b);
-  const uz = line.b / Math.hypot(1, line.b);
+  const norm = Math.sqrt(1 + line.b * line.b);
+  const nx = -line.b / norm;
+  const nz = 1 / norm;
+  const ux = 1 / norm;
+  const uz = line.b / norm;
   const slopeAngle = Math.atan(best) * RAD;
   // Toe transition: from where the points first rise off the line to the steepest point.
   const tauLow = Math.max(2 * side.sigma, TAU_MIN / 5);
