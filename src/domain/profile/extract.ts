@@ -15,6 +15,7 @@
 // Fit quality q = 1 − (RMS residual of all fitted points about their plate lines and toe circles) / 0.05 mm,
 // clipped to [0, 1], and 0 when a plate or toe could not be fitted. Slices with q < 0.6 are flagged.
 import { fitCirclePratt, fitLineTrimmed, lineFromSums, sseFromSums, type Circle, type Line } from './fits.js';
+import { walkPlate, walkSums } from './plate-walk.js';
 import { heightAboveChord, scanWeld } from './weld-scan.js';
 
 export const QUALITY_TOLERANCE_MM = 0.05;
@@ -89,52 +90,26 @@ function plateSide(
   if (!fit) return 'plate line could not be fitted';
   const sigma = fit.rms;
   const tau = Math.max(4 * sigma, TAU_MIN);
-  let { a, b } = fit.line;
   // Sums over the accepted points, growing as the walk goes on; refitted at the end, its scatter in closed form.
   const x0 = x[from] as number;
   const z0 = z[from] as number;
-  let sx = 0,
-    sz = 0,
-    sxx = 0,
-    sxz = 0,
-    szz = 0,
-    cnt = 0;
-  const start = dir === 1 ? 0 : n - 1;
-  const end = dir === 1 ? n : -1;
-  let out = 0;
-  let departure = -1;
-  for (let i = start; i !== end; i += dir) {
-    const xa = x[i] as number;
-    const za = z[i] as number;
-    const r = za - a - b * xa;
-    if (r > tau || r < -tau) {
-      out++;
-      if (out === run) {
-        departure = i - (run - 1) * dir;
-        break;
-      }
-      continue;
-    }
-    out = 0;
-    const xi = xa - x0;
-    const zi = za - z0;
-    sx += xi;
-    sz += zi;
-    sxx += xi * xi;
-    sxz += xi * zi;
-    szz += zi * zi;
-    cnt++;
-  }
+  const departure = walkPlate(x, z, n, dir, fit.line.a, fit.line.b, tau, run, x0, z0);
+  const cnt = walkSums[0] as number;
+  const sx = walkSums[1] as number;
+  const sz = walkSums[2] as number;
+  const sxx = walkSums[3] as number;
+  const sxz = walkSums[4] as number;
+  const szz = walkSums[5] as number;
   if (departure < 0) return 'no weld found: the profile never leaves the plate line';
   const line = lineFromSums(cnt, sx, sz + cnt * z0, sxx, sxz + sx * z0, x0);
   if (!line || cnt < MIN_PLATE_POINTS) return `only ${cnt} points on the plate`;
-  a = line.a;
-  b = line.b;
+  const { a, b } = line;
   const sse = sseFromSums(cnt, sx, sz, sxx, sxz, szz, x0, z0, line);
   // A dip below the line before the weld rises is an undercut.
   let undercut = 0;
+  const end = dir === 1 ? n : -1;
   let i = departure;
-  while (i !== end && i * dir < n * dir) {
+  while (i !== end) {
     // Depth below the line, taken before the test that ends the dip: code that only a rare slice reaches made the
     // optimised walk fall back to the interpreter over and over.
     const below = a + b * (x[i] as number) - (z[i] as number);
@@ -286,9 +261,8 @@ export function extractSlice(
   return { ...smooth, noise: raw.noise, quality, flagged: quality < QUALITY_THRESHOLD, problems };
 }
 
-function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run: number): SliceGeometry {
-  const problems: string[] = [];
-  const fail = (why: string, noise = 0): SliceGeometry => ({
+function failed(n: number, why: string, noise: number): SliceGeometry {
+  return {
     points: n,
     toes: null,
     reinforcementHeight: null,
@@ -300,20 +274,24 @@ function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run:
     quality: 0,
     flagged: true,
     problems: [why],
-  });
-  if (n < 3 * MIN_PLATE_POINTS) return fail(`only ${n} points`);
+  };
+}
+
+function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run: number): SliceGeometry {
+  const problems: string[] = [];
+  if (n < 3 * MIN_PLATE_POINTS) return failed(n, `only ${n} points`, 0);
   const left = plateSide(x, z, n, 1, run);
-  if (typeof left === 'string') return fail(`plate 1: ${left}`);
+  if (typeof left === 'string') return failed(n, `plate 1: ${left}`, 0);
   const right = plateSide(x, z, n, -1, run);
-  if (typeof right === 'string') return fail(`plate 2: ${right}`, left.sigma);
-  if (left.departure >= right.departure) return fail('no weld found between the plates', left.sigma);
+  if (typeof right === 'string') return failed(n, `plate 2: ${right}`, left.sigma);
+  if (left.departure >= right.departure) return failed(n, 'no weld found between the plates', left.sigma);
   const sigma = Math.max(left.sigma, right.sigma);
   const dx = ((x[n - 1] as number) - (x[0] as number)) / (n - 1);
   const k = sigma > 0.003 ? Math.max(1, Math.round(0.1 / dx)) : 1;
   const scan = scanWeld(x, z, n, left.departure, right.departure, left.line, right.line, k);
   const crown = scan.crown;
   if (crown - left.departure <= k || right.departure - crown <= k)
-    return fail('the weld is too narrow to find its toes', sigma);
+    return failed(n, 'the weld is too narrow to find its toes', sigma);
   const t1 = toeOf(x, z, left, crown, scan.steep1, scan.slope1, 1, problems, 'toe on plate 1');
   const t2 = toeOf(x, z, right, crown, scan.steep2, scan.slope2, -1, problems, 'toe on plate 2');
   // Height above the chord joining the toes, width between them.

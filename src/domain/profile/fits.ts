@@ -95,7 +95,8 @@ export function fitLineTrimmed(
   let rms = 0;
   let inliers = 0;
   for (let pass = 0; pass < 3; pass++) {
-    const tol = Math.max(3 * rms, floor);
+    // The first round takes every point (an infinite tolerance), later ones those near the last line.
+    const tol = line ? Math.max(3 * rms, floor) : Infinity;
     let sx = 0,
       sz = 0,
       sxx = 0,
@@ -107,10 +108,7 @@ export function fitLineTrimmed(
     for (let i = from; i < to; i += stride) {
       const xa = x[i] as number;
       const za = z[i] as number;
-      if (line) {
-        const r = za - a - b * xa;
-        if (r > tol || r < -tol) continue;
-      }
+      if (Math.abs(za - a - b * xa) > tol) continue;
       const xi = xa - x0;
       const zi = za - z0;
       sx += xi;
@@ -141,15 +139,11 @@ export interface Circle {
   readonly n: number;
 }
 
-/** Mean of the points from..to (exclusive): both circle fits work about it. */
-function centroid(x: ArrayLike<number>, z: ArrayLike<number>, from: number, to: number): [number, number] {
-  let mx = 0;
-  let mz = 0;
-  for (let i = from; i < to; i++) {
-    mx += x[i] as number;
-    mz += z[i] as number;
-  }
-  return [mx / (to - from), mz / (to - from)];
+/** Mean of x (or z) over the points from..to (exclusive): both circle fits work about the centroid. */
+function mean(v: ArrayLike<number>, from: number, to: number): number {
+  let m = 0;
+  for (let i = from; i < to; i++) m += v[i] as number;
+  return m / (to - from);
 }
 
 /** Root-mean-square radial distance of the points from a circle: the fit's residual. */
@@ -187,7 +181,8 @@ export function fitCirclePratt(
 ): Circle | null {
   const n = to - from;
   if (n < 3) return null;
-  const [mx, mz] = centroid(x, z, from, to);
+  const mx = mean(x, from, to);
+  const mz = mean(z, from, to);
   let Mxx = 0,
     Myy = 0,
     Mxy = 0,
@@ -261,7 +256,8 @@ export function fitCircleKasa(
 ): Circle | null {
   const n = to - from;
   if (n < 3) return null;
-  const [mx, mz] = centroid(x, z, from, to);
+  const mx = mean(x, from, to);
+  const mz = mean(z, from, to);
   let suu = 0,
     svv = 0,
     suv = 0,
