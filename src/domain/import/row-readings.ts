@@ -70,6 +70,9 @@ export class RowReader {
   private readonly decimal: '.' | ',';
   private readonly idPrefix: string;
   private readonly toeByRaw = new Map<string, 0 | 1 | 2>();
+  private readonly found: Float64Array;
+  private readonly valueTemplates = new Map<number, Partial<Record<ParameterName, number>>>();
+  private readonly readingTemplates: (Reading | undefined)[] = [];
 
   constructor(
     private readonly compiled: CompiledMapping,
@@ -79,6 +82,9 @@ export class RowReader {
     this.sampling = mapping.sampling ?? 'atPitch';
     this.decimal = mapping.decimal ?? '.';
     this.idPrefix = `${ctx.importId}-`;
+    // One bit per mapped value in the slot masks: a mapping names at most 30 targets.
+    if (compiled.values.length > 31) throw new Error('a mapping maps at most 31 values');
+    this.found = new Float64Array(compiled.values.length);
     this.side = mapping.side ?? 'face';
     const inst = mapping.instrument;
     this.instrument = {
@@ -149,15 +155,18 @@ export class RowReader {
       }
       rowPlate = plate;
     }
-    // Values per slot (0: the cross-section, 1 and 2: the toes), made only when a slot gets a value.
-    let slot0: Partial<Record<ParameterName, number>> | null = null;
-    let slot1: Partial<Record<ParameterName, number>> | null = null;
-    let slot2: Partial<Record<ParameterName, number>> | null = null;
+    // Values per slot (0: the cross-section, 1 and 2: the toes): which of the mapping's values each slot got
+    // (bit k for c.values[k]), the numbers kept in this.found until the row is accepted.
+    const found = this.found;
+    let mask0 = 0;
+    let mask1 = 0;
+    let mask2 = 0;
     let count = 0;
     let hasHeight = false;
     let hasWidth = false;
     let legs = 0;
-    for (const v of c.values) {
+    for (let k = 0; k < c.values.length; k++) {
+      const v = c.values[k] as CompiledValue;
       let num = row.plainNumber(v.column, decimal);
       if (num !== num) {
         const raw = row.text(v.column);
@@ -180,9 +189,10 @@ export class RowReader {
       }
       const slot =
         v.plate !== 0 ? v.plate : spec.per === 'toe' || c.toeColumn || this.mapping.toe ? rowPlate : 0;
-      if (slot === 1) (slot1 ??= {})[v.parameter] = value;
-      else if (slot === 2) (slot2 ??= {})[v.parameter] = value;
-      else (slot0 ??= {})[v.parameter] = value;
+      found[k] = value;
+      if (slot === 1) mask1 |= 1 << k;
+      else if (slot === 2) mask2 |= 1 << k;
+      else mask0 |= 1 << k;
       if (v.parameter === 'reinforcementHeight') hasHeight = true;
       else if (v.parameter === 'reinforcementWidth') hasWidth = true;
       else if (v.parameter === 'leg1' || v.parameter === 'leg2') legs++;
@@ -197,18 +207,56 @@ export class RowReader {
       };
     }
     if (legs === 1) return { ok: false, code: 'pairing', reason: 'has one leg length without the other' };
-    if (slot1) out.push(this.reading(`${line}a`, position, slot1, this.toe1));
-    if (slot2) out.push(this.reading(`${line}b`, position, slot2, this.toe2));
-    if (slot0) out.push(this.reading(`${line}s`, position, slot0, undefined));
+    if (mask1) out.push(this.reading(`${line}a`, position, this.values(mask1), this.toe1));
+    if (mask2) out.push(this.reading(`${line}b`, position, this.values(mask2), this.toe2));
+    if (mask0) out.push(this.reading(`${line}s`, position, this.values(mask0), undefined));
     return ACCEPTED;
   }
 
-  // A plain literal, then the optional fields: spreading per row made every reading a slow dictionary object.
+  /**
+   * The values object for the mapping's values in `mask`. Each combination is laid out once as a template (keys in
+   * mapping order) and copied: a copy of a template keeps its properties inside the object, where adding them one
+   * by one made a slower object with a separate property store, per row.
+   */
+  private values(mask: number): Values {
+    const c = this.compiled;
+    let template = this.valueTemplates.get(mask);
+    if (!template) {
+      template = {};
+      // Numbers that are not small integers, so the template's fields are laid out for any measured value.
+      for (let k = 0; k < c.values.length; k++)
+        if ((mask >> k) & 1) template[(c.values[k] as CompiledValue).parameter] = 0.5;
+      this.valueTemplates.set(mask, template);
+    }
+    const out: Partial<Record<ParameterName, number>> = { ...template };
+    for (let k = 0; k < c.values.length; k++) {
+      if ((mask >> k) & 1) out[(c.values[k] as CompiledValue).parameter] = this.found[k] as number;
+    }
+    return out;
+  }
+
+  /** The reading, copied from a template of its kind (see values) with its own id, position and values. */
   private reading(idTail: string, position: number, values: Values, toe: Reading['toe']): Reading {
+    const withBasis = values.linearMisalignment !== undefined;
+    const kind = (toe === this.toe1 ? 0 : toe === this.toe2 ? 1 : 2) + (withBasis ? 3 : 0);
+    const template = (this.readingTemplates[kind] ??= this.layout(
+      withBasis ? { linearMisalignment: 0.5 } : {},
+      toe,
+    ));
+    const r: { -readonly [K in keyof Reading]: Reading[K] } = { ...template };
+    r.id = this.idPrefix + idTail;
+    r.position = position;
+    r.values = values;
+    return r;
+  }
+
+  // The template of a kind of reading: its fields in the order they are written, id, position and values as
+  // placeholders.
+  private layout(values: Values, toe: Reading['toe']): Reading {
     const r: { -readonly [K in keyof Reading]: Reading[K] } = {
-      id: this.idPrefix + idTail,
+      id: this.idPrefix,
       round: this.round,
-      position,
+      position: 0.5,
       sampling: this.sampling,
       values,
       instrument: this.instrument,
