@@ -297,7 +297,7 @@ function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run:
   // Height above the chord joining the toes, width between them.
   const { x: x1, z: z1 } = t1.geometry;
   const { x: x2, z: z2 } = t2.geometry;
-  const len = Math.hypot(x2 - x1, z2 - z1);
+  const len = Math.sqrt((x2 - x1) ** 2 + (z2 - z1) ** 2);
   const h = heightAboveChord(x, z, left.departure, right.departure, scan, x1, z1, x2, z2);
   const xm = (t1.geometry.x + t2.geometry.x) / 2;
   const e = at(right.line, xm) - at(left.line, xm);

@@ -91,20 +91,20 @@ export function fitLineTrimmed(
 ): { line: Line; rms: number; inliers: number } | null {
   const x0 = x[from] as number;
   const z0 = z[from] as number;
-  let line: Line | null = null;
+  let fitted = false;
+  let a = 0;
+  let b = 0;
   let rms = 0;
   let inliers = 0;
   for (let pass = 0; pass < 3; pass++) {
     // The first round takes every point (an infinite tolerance), later ones those near the last line.
-    const tol = line ? Math.max(3 * rms, floor) : Infinity;
+    const tol = fitted ? Math.max(3 * rms, floor) : Infinity;
     let sx = 0,
       sz = 0,
       sxx = 0,
       sxz = 0,
       szz = 0,
       n = 0;
-    const a = line?.a ?? 0;
-    const b = line?.b ?? 0;
     for (let i = from; i < to; i += stride) {
       const xa = x[i] as number;
       const za = z[i] as number;
@@ -118,16 +118,23 @@ export function fitLineTrimmed(
       szz += zi * zi;
       n++;
     }
-    const next = lineFromSums(n, sx, sz + n * z0, sxx, sxz + sx * z0, x0);
-    if (!next) break;
+    // lineFromSums and sseFromSums, written out: the rounds make no objects.
+    const det = n * sxx - sx * sx;
+    if (n < 2 || !(Math.abs(det) > 1e-18)) break;
+    const slope = (n * sxz - sx * sz) / det;
+    const a0 = (sz - slope * sx) / n;
     // A trimming round that dropped no point refits the same set: every further round would repeat it.
     const kept = pass > 0 && n === inliers && n === Math.ceil((to - from) / stride);
-    line = next;
+    fitted = true;
+    b = slope;
+    a = a0 - slope * x0 + z0;
     inliers = n;
-    rms = Math.sqrt(sseFromSums(n, sx, sz, sxx, sxz, szz, x0, z0, next) / n);
+    // Residual sum of squares about z − z0 = a0 + b·(x − x0), from the sums.
+    const sse = szz - 2 * a0 * sz - 2 * slope * sxz + n * a0 * a0 + 2 * a0 * slope * sx + slope * slope * sxx;
+    rms = Math.sqrt((sse > 0 ? sse : 0) / n);
     if (kept) break;
   }
-  return line ? { line, rms, inliers } : null;
+  return fitted ? { line: { a, b }, rms, inliers } : null;
 }
 
 export interface Circle {

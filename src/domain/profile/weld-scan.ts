@@ -129,7 +129,7 @@ export function heightAboveChord(
 ): number {
   const cdx = x2 - x1;
   const cdz = z2 - z1;
-  const len = Math.hypot(cdx, cdz);
+  const len = Math.sqrt(cdx * cdx + cdz * cdz);
   const h = chordHeight;
   const xa = x[from] as number;
   const xb = x[to] as number;

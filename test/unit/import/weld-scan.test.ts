@@ -104,7 +104,7 @@ describe('heightAboveChord', () => {
           const x1 = (x[from] as number) + dx1;
           const x2 = (x[to] as number) + dx2;
           let want = 0;
-          const len = Math.hypot(x2 - x1, dz2 - dz1);
+          const len = Math.sqrt((x2 - x1) ** 2 + (dz2 - dz1) ** 2);
           for (let i = from; i <= to; i++) {
             const d = (((x[i] as number) - x1) * -(dz2 - dz1) + ((z[i] as number) - dz1) * (x2 - x1)) / len;
             if (d > want) want = d;
