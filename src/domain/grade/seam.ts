@@ -191,12 +191,14 @@ function accumulate(
       }
     }
     // Limit sets are shared between readings with the same inputs: inspect each distinct one once.
+    // A plain loop: a callback here made a closure per entry, tens of megabytes on a large import.
     if (setIndex !== acc.lastSet) {
       acc.lastSet = setIndex;
-      set.byLevel.forEach((pair, i) => {
-        if (pair[0].status === 'unverified') acc.unverified.add(LEVELS[i] as Level);
-        if (pair[0].status !== 'verified') acc.allVerified = false;
-      });
+      for (let i = 0; i < set.byLevel.length; i++) {
+        const status = (set.byLevel[i] as (typeof set.byLevel)[number])[0].status;
+        if (status === 'unverified') acc.unverified.add(LEVELS[i] as Level);
+        if (status !== 'verified') acc.allVerified = false;
+      }
     }
     if ((cols.measured[e] as number) > 0) {
       for (let i = 0; i < LEVELS.length; i++) {
@@ -268,7 +270,12 @@ function summarise(
 /** Ids of readings replaced by a later correction; the file was validated, so chains end and never loop. */
 export function supersededIds(readings: readonly Reading[]): Set<string> {
   const out = new Set<string>();
-  for (const r of readings) if (r.supersedes !== undefined) out.add(r.supersedes);
+  // Index loops over the readings here and in gradeSeam: they run once per grade, before the engine optimises
+  // them, and an iterator then makes an object per reading.
+  for (let i = 0; i < readings.length; i++) {
+    const replaced = (readings[i] as Reading).supersedes;
+    if (replaced !== undefined) out.add(replaced);
+  }
   return out;
 }
 
@@ -338,7 +345,8 @@ export function gradeSeam(
   const supersededByRound = new Map<number, string[]>();
   // A stable order makes the result independent of the order readings arrive in.
   const ordered = [...file.readings].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  for (const r of ordered) {
+  for (let i = 0; i < ordered.length; i++) {
+    const r = ordered[i] as Reading;
     if (r.withdrawn) continue;
     if (superseded.has(r.id)) {
       supersededByRound.set(r.round, [...(supersededByRound.get(r.round) ?? []), r.id]);
