@@ -1,9 +1,10 @@
 // Weld geometry from one surface profile across a butt weld (x across the seam, z up out of the face, plate 1 on
 // the left). Our method, step by step:
-//  1. each plate surface by a trimmed least-squares line over the outer fifth of the profile on its side, then
-//     grown inwards while points stay within the departure tolerance τ = max(4σ, 0.005 mm) (σ: plate scatter);
-//  2. the weld begins where three points in a row (a smoothing window's worth when smoothed) leave the plate line by more than τ; a dip below the line
-//     first is an undercut, its depth the deepest point;
+//  1. each plate surface by a trimmed least-squares line over about 64 points of the outer fifth of the profile on
+//     its side (σ, the plate scatter, is its RMS), then walked inwards while points stay within the departure
+//     tolerance τ = max(4σ, 0.005 mm) and refitted over every point the walk accepted;
+//  2. the weld begins where three points in a row (a smoothing window's worth when smoothed) leave the plate line
+//     by more than τ; a dip below the line first is an undercut (on either plate), its depth the deepest point;
 //  3. the steepest point of the face between toe and crown (slope over ±k points) splits the toe transition from
 //     the cap; the toe transition is fitted with Pratt's circle (toe radius, with its RMS residual), the cap next
 //     to it with another; the flank angle θ is the angle of their common tangent (perpendicular to the line of
