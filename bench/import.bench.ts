@@ -1,17 +1,21 @@
 // npm run bench (import): a 100,000-row parameter table read, validated and graded, as a ratio to papaparse's
 // plain parse of the same file in the same run (target ≤ 1.5×); 10,000 profiles × 1,000 points extracted, as a
 // ratio to one plain least-squares line fit over the same points (target ≤ 3×), with profiles per second; and the
-// parsing of a profile file timed on its own.
+// parsing of a profile file timed on its own. Each run times the baseline and the measured work back to back and
+// the ratio is the median of the runs' ratios, so load from other work on the machine shifts both alike.
 import { performance } from 'node:perf_hooks';
 import Papa from 'papaparse';
 import { BUILT_IN_CRITERIA, gradeSeam, type Seam, type SeamFile } from '../src/domain/index.js';
-import { importTable, MAPPING_FORMAT, type ImportMapping } from '../src/domain/import/index.js';
+import { nodeHasher } from '../src/cli/node-hasher.js';
+import { importTable, MAPPING_FORMAT, sha256, type ImportMapping } from '../src/domain/import/index.js';
 import { extractSlice, fitLine, importProfiles } from '../src/domain/profile/index.js';
 
 const ROWS = 100_000;
 const SLICES = 10_000;
 const POINTS = 1_000;
 const RUNS = 5;
+const TABLE_TARGET = 1.5;
+const PROFILE_TARGET = 3;
 
 const seam: Seam = {
   id: 'bench',
@@ -77,13 +81,17 @@ const context = { importId: 'bench', seam, recordedAt: '2026-11-20T08:00:00Z' };
 const papaMs: number[] = [];
 const importMs: number[] = [];
 const readOnlyMs: number[] = [];
+const gradeMs: number[] = [];
+const tableRatios: number[] = [];
+const jsHashMs: number[] = [];
 let readings = 0;
 let level = '';
 for (let run = 0; run <= RUNS; run++) {
   const p = time(() => Papa.parse(text));
   let gradeT = 0;
   const i = time(() => {
-    const o = importTable(bytes, { mapping: MAPPING, context });
+    // Hashed as the command line hashes (node:crypto); the worker uses WebCrypto, the JS fallback is benched below.
+    const o = importTable(bytes, { mapping: MAPPING, context, hasher: nodeHasher() });
     if (o.kind !== 'read') throw new Error(`bench table refused: ${o.refusal.message}`);
     readings = o.readings.length;
     const file: SeamFile = {
@@ -99,10 +107,19 @@ for (let run = 0; run <= RUNS; run++) {
         '';
     });
   });
+  // The pure JS hasher (the fallback where no native one is given), timed apart: not part of the ratio.
+  const j = time(() => {
+    const h = sha256();
+    h.update(bytes);
+    h.digest();
+  });
   if (run === 0) continue;
   papaMs.push(p);
   importMs.push(i);
   readOnlyMs.push(i - gradeT);
+  gradeMs.push(gradeT);
+  tableRatios.push(i / p);
+  jsHashMs.push(j);
 }
 
 // --- raw profiles, already in typed arrays ---
@@ -128,6 +145,7 @@ for (let s = 0; s < SLICES; s++) {
 }
 const lineMs: number[] = [];
 const extractMs: number[] = [];
+const profileRatios: number[] = [];
 let flagged = 0;
 let sink = 0;
 for (let run = 0; run <= 3; run++) {
@@ -148,6 +166,7 @@ for (let run = 0; run <= 3; run++) {
   flagged = f;
   lineMs.push(l);
   extractMs.push(e);
+  profileRatios.push(e / l);
 }
 
 // --- profile file parsing, on its own: 1,000 slices of 1,000 points as CSV ---
@@ -175,44 +194,53 @@ const extractPerSlice = median(extractMs) / SLICES;
 const fileTotal = median(fileMs);
 const parseOnly = fileTotal - extractPerSlice * FILE_SLICES;
 
+const round = (x: number, digits = 1) => Number(x.toFixed(digits));
+const tableRatio = round(median(tableRatios), 2);
+const profileRatio = round(median(profileRatios), 2);
 const result = {
   table: {
     rows: ROWS,
     readings,
-    inputMB: Number((bytes.length / 1e6).toFixed(1)),
-    papaparsePlainMs: Number(median(papaMs).toFixed(1)),
-    parseValidateGradeMs: Number(median(importMs).toFixed(1)),
-    parseValidateMs: Number(median(readOnlyMs).toFixed(1)),
-    ratio: Number((median(importMs) / median(papaMs)).toFixed(2)),
-    target: '≤ 1.5× papaparse plain parse',
+    inputMB: round(bytes.length / 1e6),
+    papaparsePlainMs: round(median(papaMs)),
+    parseValidateGradeMs: round(median(importMs)),
+    parseValidateMs: round(median(readOnlyMs)),
+    gradeMs: round(median(gradeMs)),
+    ratio: tableRatio,
+    ratioRange: [round(Math.min(...tableRatios), 2), round(Math.max(...tableRatios), 2)],
+    target: `≤ ${TABLE_TARGET}× papaparse plain parse`,
+    met: tableRatio <= TABLE_TARGET,
+    hash: 'node:crypto (as the command line); the worker uses WebCrypto',
+    sha256JsFallbackMs: round(median(jsHashMs)),
     levelMet: level,
   },
   profiles: {
     slices: SLICES,
     pointsPerSlice: POINTS,
-    lineFitMs: Number(median(lineMs).toFixed(1)),
-    extractMs: Number(median(extractMs).toFixed(1)),
-    ratio: Number((median(extractMs) / median(lineMs)).toFixed(2)),
-    target: '≤ 3× one plain least-squares line fit',
+    lineFitMs: round(median(lineMs)),
+    extractMs: round(median(extractMs)),
+    ratio: profileRatio,
+    ratioRange: [round(Math.min(...profileRatios), 2), round(Math.max(...profileRatios), 2)],
+    target: `≤ ${PROFILE_TARGET}× one plain least-squares line fit`,
+    met: profileRatio <= PROFILE_TARGET,
     profilesPerSecond: Math.round(SLICES / (median(extractMs) / 1000)),
     flagged,
   },
   profileFile: {
     slices: FILE_SLICES,
-    inputMB: Number((csvBytes.length / 1e6).toFixed(1)),
-    readAndExtractMs: Number(fileTotal.toFixed(1)),
-    parseMs: Number(parseOnly.toFixed(1)),
-    parseMBps: Number((csvBytes.length / 1e6 / (parseOnly / 1000)).toFixed(1)),
+    inputMB: round(csvBytes.length / 1e6),
+    readAndExtractMs: round(fileTotal),
+    parseMs: round(parseOnly),
+    parseMBps: round(csvBytes.length / 1e6 / (parseOnly / 1000)),
   },
   sink: sink === 12345 ? 1 : 0,
 };
 process.stdout.write(`${JSON.stringify(result)}\n`);
-// Targets are reported, not enforced here: the table figure includes the grader's own time (see docs/import.md).
-if (result.table.ratio > 1.5)
-  process.stdout.write(`import bench: table ratio ${result.table.ratio}× misses the 1.5× target\n`);
-if (result.profiles.ratio > 3)
-  process.stdout.write(`import bench: profile ratio ${result.profiles.ratio}× misses the 3× target\n`);
+// Targets are reported, not enforced here: timings depend on the machine and its load (see docs/import.md).
+const verdict = (met: boolean) => (met ? 'met' : 'missed');
 process.stdout.write(
-  `import: ${ROWS} rows → ${readings} readings, parse+validate+grade ${result.table.parseValidateGradeMs} ms = ${result.table.ratio}× papaparse (${result.table.papaparsePlainMs} ms); ` +
-    `profiles: ${result.profiles.profilesPerSecond}/s, ${result.profiles.ratio}× a line fit; profile file parse ${result.profileFile.parseMBps} MB/s\n`,
+  `import: table ${ROWS} rows → ${readings} readings, read ${result.table.parseValidateMs} ms + grade ${result.table.gradeMs} ms vs papaparse ${result.table.papaparsePlainMs} ms: ` +
+    `${tableRatio}× (target ≤ ${TABLE_TARGET}×, ${verdict(result.table.met)}); ` +
+    `profiles: ${result.profiles.profilesPerSecond}/s, ${profileRatio}× a line fit (target ≤ ${PROFILE_TARGET}×, ${verdict(result.profiles.met)}); ` +
+    `profile file parse ${result.profileFile.parseMBps} MB/s\n`,
 );

@@ -12,6 +12,7 @@ import {
   type SavedProfile,
 } from '../src/domain/import/index.js';
 import { ProfileImport, QUALITY_THRESHOLD } from '../src/domain/profile/index.js';
+import { webCryptoHasher } from './web-crypto-hasher.js';
 
 export interface ByteSource {
   readonly size: number;
@@ -67,13 +68,21 @@ export const importApi = {
     context: ImportContext,
     onProgress?: (p: ImportProgress) => void,
   ): Promise<ReadOutcome> {
-    const t = new TableImport({ mapping, context, size: file.size });
+    // Hashed natively where it can be; otherwise the import's own streaming hasher.
+    const native = webCryptoHasher(file);
+    const t = new TableImport({
+      mapping,
+      context,
+      size: file.size,
+      ...(native ? { hasher: native.hasher } : {}),
+    });
     await pump(
       file,
       (b) => t.push(b),
       () => t.refused,
       (bytes) => onProgress?.({ bytes, size: file.size, items: t.progress.dataRows }),
     );
+    if (native) await native.ready;
     const o = t.finish();
     if (o.kind === 'refused') {
       return {

@@ -1,6 +1,6 @@
 // `beadbook import` and `beadbook profile`: the tablet's import readers on a QA desk. The file is streamed in
 // chunks (never held whole) and hashed with node:crypto as it goes.
-import { createHash, randomUUID } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
 import {
@@ -16,7 +16,6 @@ import {
   MAX_TABLE_BYTES,
   parseMapping,
   TableImport,
-  type Hasher,
   type ImportContext,
   type ImportMapping,
   type TableOutcome,
@@ -28,17 +27,13 @@ import {
   type ProfileOutcome,
 } from '../domain/profile/index.js';
 import { InputError } from './grade-command.js';
+import { nodeHasher } from './node-hasher.js';
 
 /** Exit code 2 with a printed outcome: the file was refused (the JSON still says why). */
 export class Refused extends Error {
   constructor(readonly output: string) {
     super('refused');
   }
-}
-
-function nodeHasher(): Hasher {
-  const h = createHash('sha256');
-  return { update: (b) => void h.update(b), digest: () => h.digest('hex') };
 }
 
 async function fileSize(path: string, what: string): Promise<number> {

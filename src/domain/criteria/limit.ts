@@ -10,7 +10,7 @@ export interface LimitInputs {
 
 // Limits are kept to the micrometre so that 0.15 × 7 is 1.05, not 1.0499999999999998, and equality passes.
 // `+ 0` turns a rounded −0 into 0.
-const toMicrometre = (x: number): number => Math.round(x * 1e6) / 1e6 + 0;
+export const toMicrometre = (x: number): number => Math.round(x * 1e6) / 1e6 + 0;
 
 /** The variables a limit formula needs that the inputs lack (empty when it can be evaluated). */
 export function missingInputs(expr: LimitExpr, inputs: LimitInputs): ('a' | 'b' | 's')[] {

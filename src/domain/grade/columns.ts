@@ -1,10 +1,9 @@
-import { marginTo, passesLimit } from '../criteria/limit.js';
-import type { LimitExpr } from '../criteria/types.js';
+import { toMicrometre } from '../criteria/limit.js';
 import { readingSide } from '../model/joint.js';
 import { LEVELS } from '../model/levels.js';
 import { PARAMETER_NAMES, type ParameterName } from '../model/parameters.js';
 import type { Reading } from '../model/seam-file.js';
-import { limitSetFor, measuredQuantity, thicknessFor, type SeamContext } from './context.js';
+import { limitSetFor, measuredQuantity, thicknessFor, type RowInfo, type SeamContext } from './context.js';
 
 /** Level met as a rank: 3 = B, 2 = C, 1 = D, 0 = below D (same order as levelRank). */
 export const RANK_NONE = 255;
@@ -61,6 +60,9 @@ function grow(c: Mutable, capacity: number): void {
   c.thickness = copy(c.thickness, Float64Array);
 }
 
+/** Parameter names by name, for reading a reading's values in one pass over its own keys. */
+const PARAM_INDEX = new Map<string, number>(PARAMETER_NAMES.map((n, i) => [n, i]));
+
 export function gradeColumns(readings: readonly Reading[], ctx: SeamContext): GradeColumns {
   const n = readings.length;
   const initial = Math.max(16, n * 4);
@@ -81,21 +83,28 @@ export function gradeColumns(readings: readonly Reading[], ctx: SeamContext): Gr
     readingGraded: new Uint32Array(n),
   };
   const levels = LEVELS.length;
+  // The graded rows in PARAMETER_NAMES order, so a reading's entries come out in that order.
+  const graded = PARAMETER_NAMES.map((name) => ctx.rowsByParameter.get(name) ?? []);
   for (let ri = 0; ri < n; ri++) {
     const r = readings[ri] as Reading;
+    const values = r.values;
     const side = readingSide(r);
     const resolutionMm = r.instrument.resolutionMm;
     const resolutionDeg = r.instrument.resolutionDeg;
+    // One pass over the reading's own keys instead of a look-up per known parameter.
     let present = 0;
-    let graded = 0;
+    for (const key in values) {
+      const p = PARAM_INDEX.get(key);
+      if (p !== undefined && values[key as ParameterName] !== undefined) present |= 1 << p;
+    }
+    let gradedBits = 0;
     let worst = RANK_NONE;
     c.readingFirst[ri] = c.size;
-    for (const name of PARAMETER_NAMES) {
-      if (r.values[name] === undefined) continue;
-      present |= PARAM_BIT[name];
-      const infos = ctx.rowsByParameter.get(name);
-      if (!infos) continue;
-      for (const info of infos) {
+    for (let p = 0; present >> p !== 0; p++) {
+      if (((present >> p) & 1) === 0) continue;
+      const infos = graded[p] as readonly RowInfo[];
+      for (let k = 0; k < infos.length; k++) {
+        const info = infos[k] as RowInfo;
         const row = info.row;
         if (row.applies.side !== undefined && row.applies.side !== side) continue;
         if (row.quantity === 'legDifference' && ctx.asymmetryPrescribed) continue;
@@ -107,43 +116,49 @@ export function gradeColumns(readings: readonly Reading[], ctx: SeamContext): Gr
         let a = ctx.seam.nominalThroat;
         let flags = 0;
         if (row.throat === 'actual') {
-          if (r.values.throat !== undefined) a = r.values.throat;
+          if (values.throat !== undefined) a = values.throat;
           else flags |= FLAG_NOMINAL_THROAT;
         }
-        const set = limitSetFor(ctx, info, t, a, r.values.reinforcementWidth);
+        const set = limitSetFor(ctx, info, t, a, values.reinforcementWidth);
         if (set.missing !== null) continue;
+        // passesLimit and marginTo (criteria/limit.ts) inlined over the set's precomputed kinds.
         let mask = 0;
         for (let i = 0; i < levels; i++) {
-          if (passesLimit(set.exprs[i] as LimitExpr, set.values[i] as number, measured)) mask |= 1 << i;
+          const limit = set.values[i] as number;
+          if ((set.atLeast >> i) & 1 ? measured >= limit : measured <= limit) mask |= 1 << i;
         }
         // Nested levels: a level is met only when every less stringent level is met too.
         let rank = 0;
         for (let i = levels - 1; i >= 0 && (mask >> i) & 1; i--) rank = levels - i;
         const gi = info.governingIndex;
-        const margin = marginTo(set.exprs[gi] as LimitExpr, set.values[gi] as number, measured);
+        const gLimit = set.values[gi] as number;
+        const margin =
+          (set.unlimited >> gi) & 1
+            ? NaN
+            : toMicrometre((set.atLeast >> gi) & 1 ? measured - gLimit : gLimit - measured);
         const resolution = row.unit === 'deg' ? resolutionDeg : resolutionMm;
         if (resolution === undefined) flags |= FLAG_NO_RESOLUTION;
-        else if (margin !== null && Math.abs(margin) <= resolution + 1e-9) flags |= FLAG_BORDERLINE;
+        else if (margin === margin && Math.abs(margin) <= resolution + 1e-9) flags |= FLAG_BORDERLINE;
         if (c.size === c.reading.length) grow(c, c.reading.length * 2);
         const e = c.size++;
         c.reading[e] = ri;
         c.limitSet[e] = set.index;
         c.measured[e] = measured;
-        c.margin[e] = margin ?? NaN;
+        c.margin[e] = margin;
         c.rank[e] = rank;
         c.mask[e] = mask;
         c.flags[e] = flags;
         c.thickness[e] = t;
         if (worst === RANK_NONE || rank < worst) worst = rank;
-        graded |= PARAM_BIT[name];
-        if (row.quantity === 'legDifference') graded |= PARAM_BIT.leg2;
-        if (info.usesWidth) graded |= PARAM_BIT.reinforcementWidth;
+        gradedBits |= 1 << p;
+        if (row.quantity === 'legDifference') gradedBits |= PARAM_BIT.leg2;
+        if (info.usesWidth) gradedBits |= PARAM_BIT.reinforcementWidth;
       }
     }
     c.readingRank[ri] = worst;
     c.readingCount[ri] = c.size - (c.readingFirst[ri] as number);
     c.readingPresent[ri] = present;
-    c.readingGraded[ri] = graded;
+    c.readingGraded[ri] = gradedBits;
   }
   return c;
 }

@@ -34,6 +34,10 @@ export interface LimitSet {
   readonly exprs: readonly LimitExpr[];
   readonly shortOnly: readonly boolean[];
   readonly anyUnverified: boolean;
+  /** Bit i set when the limit at LEVELS[i] is a minimum (an angle to reach) rather than a maximum. */
+  readonly atLeast: number;
+  /** Bit i set when the row sets no limit at LEVELS[i]. */
+  readonly unlimited: number;
   /** Reported arrays, one per pass pattern (bit i set when LEVELS[i] passes), built on first use. */
   readonly patterns: (readonly LimitAtLevel[] | undefined)[];
   readonly missing: string | null;
@@ -47,6 +51,8 @@ export interface RowInfo {
   readonly governingIndex: number;
   readonly usesWidth: boolean;
   readonly memo: Map<number, Map<number, Map<number, Map<number, LimitSet>>>>;
+  /** The limit set last asked for: consecutive readings of an import mostly share it (keys as in memo). */
+  readonly recent: { t: number; a: number; b: number; set: LimitSet | null };
 }
 
 /** What every reading of one seam shares, computed once per seam. */
@@ -91,6 +97,7 @@ export function seamContext(
       governingIndex: LEVELS.indexOf(req),
       usesWidth: usesWidth(row),
       memo: new Map(),
+      recent: { t: NaN, a: NaN, b: NaN, set: null },
     };
     infos.push(info);
     const list = byParam.get(row.parameter) ?? [];
@@ -148,6 +155,8 @@ function buildLimitSet(info: RowInfo, inputs: LimitInputs, index: number): Limit
   const exprs: LimitExpr[] = [];
   const shortOnly: boolean[] = [];
   let anyUnverified = false;
+  let atLeast = 0;
+  let unlimited = 0;
   for (const level of LEVELS) {
     const l: LevelLimit = band.levels[level];
     const missing = missingInputs(l.limit, inputs);
@@ -162,6 +171,8 @@ function buildLimitSet(info: RowInfo, inputs: LimitInputs, index: number): Limit
         exprs: [],
         shortOnly: [],
         anyUnverified,
+        atLeast: 0,
+        unlimited: 0,
         patterns: [],
         missing: why,
       };
@@ -181,6 +192,8 @@ function buildLimitSet(info: RowInfo, inputs: LimitInputs, index: number): Limit
       { ...base, passes: false },
       { ...base, passes: true },
     ]);
+    if (l.limit.kind === 'minAngle') atLeast |= 1 << values.length;
+    if (l.limit.kind === 'unlimited') unlimited |= 1 << values.length;
     values.push(value);
     exprs.push(l.limit);
     shortOnly.push(short);
@@ -194,6 +207,8 @@ function buildLimitSet(info: RowInfo, inputs: LimitInputs, index: number): Limit
     exprs,
     shortOnly,
     anyUnverified,
+    atLeast,
+    unlimited,
     patterns: new Array(1 << LEVELS.length),
     missing: null,
   };
@@ -216,15 +231,24 @@ export function limitSetFor(
   a: number | undefined,
   b: number | undefined,
 ): LimitSet {
+  const aKey = a ?? -1;
+  const bKey = info.usesWidth ? (b ?? -1) : -1;
+  // ctx.s is fixed per seam, so t, a and b decide the set.
+  const recent = info.recent;
+  if (recent.set !== null && recent.t === t && recent.a === aKey && recent.b === bKey) return recent.set;
   const byA = child(info.memo, t, Map<number, Map<number, Map<number, LimitSet>>>);
-  const byB = child(byA, a ?? -1, Map<number, Map<number, LimitSet>>);
-  const byS = child(byB, info.usesWidth ? (b ?? -1) : -1, Map<number, LimitSet>);
+  const byB = child(byA, aKey, Map<number, Map<number, LimitSet>>);
+  const byS = child(byB, bKey, Map<number, LimitSet>);
   let set = byS.get(ctx.s);
   if (set === undefined) {
     set = buildLimitSet(info, { t, a, b, s: ctx.s }, ctx.limitSets.length);
     ctx.limitSets.push(set);
     byS.set(ctx.s, set);
   }
+  recent.t = t;
+  recent.a = aKey;
+  recent.b = bKey;
+  recent.set = set;
   return set;
 }
 

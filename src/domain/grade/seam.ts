@@ -129,12 +129,17 @@ interface RowAccumulator {
   readonly shortCounted: (number[] | undefined)[];
 }
 
+/** The margin relative to the governing limit (Infinity when unlimited): how close to failing an entry is. */
+function relativeMargin(cols: GradeColumns, e: number, set: LimitSet, info: RowInfo): number {
+  const margin = cols.margin[e] as number;
+  const scale = Math.abs(set.values[info.governingIndex] as number);
+  return Number.isNaN(margin) ? Infinity : scale > 0 && Number.isFinite(scale) ? margin / scale : margin;
+}
+
 function keyOf(cols: GradeColumns, e: number, r: Reading, ctx: SeamContext): SpotKey {
   const set = ctx.limitSets[cols.limitSet[e] as number] as LimitSet;
   const info = ctx.rows[set.rowIndex] as RowInfo;
-  const margin = cols.margin[e] as number;
-  const scale = Math.abs(set.values[info.governingIndex] as number);
-  const rel = Number.isNaN(margin) ? Infinity : scale > 0 && Number.isFinite(scale) ? margin / scale : margin;
+  const rel = relativeMargin(cols, e, set, info);
   return { rank: cols.rank[e] as number, rel, position: r.position ?? r.start ?? 0, readingId: r.id };
 }
 
@@ -169,21 +174,31 @@ function accumulate(
     }
     acc.count++;
     if (rank < acc.rank) acc.rank = rank;
-    // Cheap pre-check: only build the full key when this entry could be the worst.
-    if (rank <= acc.worstKey.rank) {
-      const key = keyOf(cols, e, r, ctx);
-      if (isWorse(key, acc.worstKey)) {
-        acc.worstKey = key;
+    // Only an entry that could be the worst gets its key built, and only a worse one keeps it (isWorse, unrolled).
+    const w = acc.worstKey;
+    if (rank < w.rank) {
+      acc.worstKey = keyOf(cols, e, r, ctx);
+      acc.worstEntry = e;
+    } else if (rank === w.rank) {
+      const rel = relativeMargin(cols, e, set, acc.info);
+      const position = r.position ?? r.start ?? 0;
+      if (
+        rel < w.rel ||
+        (rel === w.rel && (position < w.position || (position === w.position && r.id < w.readingId)))
+      ) {
+        acc.worstKey = { rank, rel, position, readingId: r.id };
         acc.worstEntry = e;
       }
     }
     // Limit sets are shared between readings with the same inputs: inspect each distinct one once.
+    // A plain loop: a callback here made a closure per entry, tens of megabytes on a large import.
     if (setIndex !== acc.lastSet) {
       acc.lastSet = setIndex;
-      set.byLevel.forEach((pair, i) => {
-        if (pair[0].status === 'unverified') acc.unverified.add(LEVELS[i] as Level);
-        if (pair[0].status !== 'verified') acc.allVerified = false;
-      });
+      for (let i = 0; i < set.byLevel.length; i++) {
+        const status = (set.byLevel[i] as (typeof set.byLevel)[number])[0].status;
+        if (status === 'unverified') acc.unverified.add(LEVELS[i] as Level);
+        if (status !== 'verified') acc.allVerified = false;
+      }
     }
     if ((cols.measured[e] as number) > 0) {
       for (let i = 0; i < LEVELS.length; i++) {
@@ -255,7 +270,12 @@ function summarise(
 /** Ids of readings replaced by a later correction; the file was validated, so chains end and never loop. */
 export function supersededIds(readings: readonly Reading[]): Set<string> {
   const out = new Set<string>();
-  for (const r of readings) if (r.supersedes !== undefined) out.add(r.supersedes);
+  // Index loops over the readings here and in gradeSeam: they run once per grade, before the engine optimises
+  // them, and an iterator then makes an object per reading.
+  for (let i = 0; i < readings.length; i++) {
+    const replaced = (readings[i] as Reading).supersedes;
+    if (replaced !== undefined) out.add(replaced);
+  }
   return out;
 }
 
@@ -325,7 +345,8 @@ export function gradeSeam(
   const supersededByRound = new Map<number, string[]>();
   // A stable order makes the result independent of the order readings arrive in.
   const ordered = [...file.readings].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  for (const r of ordered) {
+  for (let i = 0; i < ordered.length; i++) {
+    const r = ordered[i] as Reading;
     if (r.withdrawn) continue;
     if (superseded.has(r.id)) {
       supersededByRound.set(r.round, [...(supersededByRound.get(r.round) ?? []), r.id]);

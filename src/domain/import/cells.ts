@@ -81,22 +81,26 @@ const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 
 /**
  * The fast path of readCell for the common cell: an optional sign, digits and at most one decimal mark, nothing
  * else. Returns NaN for anything else (empty, spaces, exponent, text), which readCell then classifies. The digits
- * are read as one integer and divided by a power of ten: both exact, so the one rounding gives the same double as
- * Number() of the text.
+ * are read as one integer and divided by a power of ten: both exact (at most 15 digits), so the one rounding gives
+ * the same double as Number() of the text.
  */
 export function plainNumber(s: string, decimal: '.' | ','): number {
-  const n = s.length;
-  if (n === 0 || n > 16) return NaN;
+  return plainNumberIn(s, 0, s.length, decimal);
+}
+
+/** plainNumber of text[from, to), read in place so a row's cells need not become strings. */
+export function plainNumberIn(text: string, from: number, to: number, decimal: '.' | ','): number {
+  if (to <= from || to - from > 17) return NaN;
   const mark = decimal === '.' ? 46 : 44;
-  let i = 0;
-  let c = s.charCodeAt(0);
+  let i = from;
+  let c = text.charCodeAt(i);
   const negative = c === 45;
-  if (negative || c === 43) i = 1;
+  if (negative || c === 43) i++;
   let mantissa = 0;
   let digits = 0;
   let frac = -1;
-  for (; i < n; i++) {
-    c = s.charCodeAt(i);
+  for (; i < to; i++) {
+    c = text.charCodeAt(i);
     if (c >= 48 && c <= 57) {
       mantissa = mantissa * 10 + (c - 48);
       digits++;
@@ -104,7 +108,8 @@ export function plainNumber(s: string, decimal: '.' | ','): number {
     } else if (c === mark && frac < 0) frac = 0;
     else return NaN;
   }
-  if (digits === 0) return NaN;
+  // Beyond 15 digits the integer may not be exact: readCell's Number() takes over.
+  if (digits === 0 || digits > 15) return NaN;
   const v = frac > 0 ? mantissa / (POW10[frac] as number) : mantissa;
   return negative ? -v : v;
 }

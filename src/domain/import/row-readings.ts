@@ -4,9 +4,10 @@
 // parseSeamFile.
 import { PARAMETERS, type ParameterName } from '../model/parameters.js';
 import type { Reading, Seam, Values } from '../model/seam-file.js';
-import { plainNumber, readCell } from './cells.js';
+import { readCell } from './cells.js';
 import type { CompiledMapping, CompiledValue } from './compile-mapping.js';
 import type { ImportMapping } from './mapping.js';
+import type { RowCells } from './row-cells.js';
 
 export interface ImportContext {
   /** Names this import in each reading's source; at most 40 characters so reading ids stay within 64. */
@@ -66,6 +67,12 @@ export class RowReader {
   private readonly round: number;
   private readonly toe1: NonNullable<Reading['toe']>;
   private readonly toe2: NonNullable<Reading['toe']>;
+  private readonly decimal: '.' | ',';
+  private readonly idPrefix: string;
+  private readonly toeByRaw = new Map<string, 0 | 1 | 2>();
+  private readonly found: Float64Array;
+  private readonly valueTemplates = new Map<number, Partial<Record<ParameterName, number>>>();
+  private readonly readingTemplates: (Reading | undefined)[] = [];
 
   constructor(
     private readonly compiled: CompiledMapping,
@@ -73,6 +80,11 @@ export class RowReader {
     private readonly ctx: ImportContext,
   ) {
     this.sampling = mapping.sampling ?? 'atPitch';
+    this.decimal = mapping.decimal ?? '.';
+    this.idPrefix = `${ctx.importId}-`;
+    // One bit per mapped value in the slot masks: a mapping names at most 30 targets.
+    if (compiled.values.length > 31) throw new Error('a mapping maps at most 31 values');
+    this.found = new Float64Array(compiled.values.length);
     this.side = mapping.side ?? 'face';
     const inst = mapping.instrument;
     this.instrument = {
@@ -88,22 +100,24 @@ export class RowReader {
   }
 
   /** Appends the row's readings to `out`, or returns why the row is set aside (then `out` is untouched). */
-  read(cells: readonly string[], line: number, out: Reading[]): RowOutcome {
+  read(row: RowCells, line: number, out: Reading[]): RowOutcome {
     const c = this.compiled;
-    if (cells.length !== c.width) {
-      const extraEmpty = cells.length > c.width && cells.slice(c.width).every((x) => x.trim() === '');
+    const decimal = this.decimal;
+    if (row.count !== c.width) {
+      let extraEmpty = row.count > c.width;
+      for (let i = c.width; extraEmpty && i < row.count; i++) extraEmpty = row.text(i).trim() === '';
       if (!extraEmpty) {
         return {
           ok: false,
           code: 'fields',
-          reason: `has ${cells.length} field${cells.length === 1 ? '' : 's'} where the table has ${c.width}`,
+          reason: `has ${row.count} field${row.count === 1 ? '' : 's'} where the table has ${c.width}`,
         };
       }
     }
-    const posRaw = cells[c.position.column] ?? '';
-    let posValue = plainNumber(posRaw, this.mapping.decimal ?? '.');
+    let posValue = row.plainNumber(c.position.column, decimal);
     if (posValue !== posValue) {
-      const posCell = readCell(posRaw, this.mapping.decimal ?? '.');
+      const posRaw = row.text(c.position.column);
+      const posCell = readCell(posRaw, decimal);
       if (posCell.kind !== 'number') {
         return {
           ok: false,
@@ -124,9 +138,15 @@ export class RowReader {
     }
     let rowPlate: 1 | 2 | 0 = this.mapping.toe?.plate ?? 0;
     if (c.toeColumn) {
-      const code = (cells[c.toeColumn.column] ?? '').trim().toLowerCase();
-      const plate = c.toeCodes.get(code);
+      const raw = row.text(c.toeColumn.column);
+      // Most files repeat two or three codes: each raw spelling is normalised once.
+      let plate = this.toeByRaw.get(raw);
+      if (plate === undefined) {
+        plate = c.toeCodes.get(raw.trim().toLowerCase()) ?? 0;
+        if (this.toeByRaw.size < 64) this.toeByRaw.set(raw, plate);
+      }
       if (!plate) {
+        const code = raw.trim().toLowerCase();
         return {
           ok: false,
           code: 'toe',
@@ -135,19 +155,21 @@ export class RowReader {
       }
       rowPlate = plate;
     }
-    // Values per slot (0: the cross-section, 1 and 2: the toes), made only when a slot gets a value.
-    let slot0: Partial<Record<ParameterName, number>> | null = null;
-    let slot1: Partial<Record<ParameterName, number>> | null = null;
-    let slot2: Partial<Record<ParameterName, number>> | null = null;
-    const decimal = this.mapping.decimal ?? '.';
+    // Values per slot (0: the cross-section, 1 and 2: the toes): which of the mapping's values each slot got
+    // (bit k for c.values[k]), the numbers kept in this.found until the row is accepted.
+    const found = this.found;
+    let mask0 = 0;
+    let mask1 = 0;
+    let mask2 = 0;
     let count = 0;
     let hasHeight = false;
     let hasWidth = false;
     let legs = 0;
-    for (const v of c.values) {
-      const raw = cells[v.column] ?? '';
-      let num = plainNumber(raw, decimal);
+    for (let k = 0; k < c.values.length; k++) {
+      const v = c.values[k] as CompiledValue;
+      let num = row.plainNumber(v.column, decimal);
       if (num !== num) {
+        const raw = row.text(v.column);
         const cell = readCell(raw, decimal);
         if (cell.kind === 'empty') continue;
         if (cell.kind !== 'number') {
@@ -167,9 +189,10 @@ export class RowReader {
       }
       const slot =
         v.plate !== 0 ? v.plate : spec.per === 'toe' || c.toeColumn || this.mapping.toe ? rowPlate : 0;
-      if (slot === 1) (slot1 ??= {})[v.parameter] = value;
-      else if (slot === 2) (slot2 ??= {})[v.parameter] = value;
-      else (slot0 ??= {})[v.parameter] = value;
+      found[k] = value;
+      if (slot === 1) mask1 |= 1 << k;
+      else if (slot === 2) mask2 |= 1 << k;
+      else mask0 |= 1 << k;
       if (v.parameter === 'reinforcementHeight') hasHeight = true;
       else if (v.parameter === 'reinforcementWidth') hasWidth = true;
       else if (v.parameter === 'leg1' || v.parameter === 'leg2') legs++;
@@ -184,32 +207,71 @@ export class RowReader {
       };
     }
     if (legs === 1) return { ok: false, code: 'pairing', reason: 'has one leg length without the other' };
-    // A plain literal, then the optional fields: spreading per row made every reading a slow dictionary object.
-    const make = (suffix: string, values: Values, toe: Reading['toe']): Reading => {
-      const r: { -readonly [K in keyof Reading]: Reading[K] } = {
-        id: `${this.ctx.importId}-${line}${suffix}`,
-        round: this.round,
-        position,
-        sampling: this.sampling,
-        values,
-        instrument: this.instrument,
-        source: this.source,
-        recordedAt: this.ctx.recordedAt,
-      };
-      if (toe) r.toe = toe;
-      else r.side = this.side;
-      if (this.ctx.seam) r.seamId = this.ctx.seam.id;
-      if (values.linearMisalignment !== undefined && this.mapping.misalignmentBasis) {
-        r.misalignmentBasis = this.mapping.misalignmentBasis;
-      }
-      if (this.ctx.examiner) r.examiner = this.ctx.examiner;
-      if (this.ctx.device) r.device = this.ctx.device;
-      return r;
-    };
-    if (slot1) out.push(make('a', slot1, this.toe1));
-    if (slot2) out.push(make('b', slot2, this.toe2));
-    if (slot0) out.push(make('s', slot0, undefined));
+    if (mask1) out.push(this.reading(`${line}a`, position, this.values(mask1), this.toe1));
+    if (mask2) out.push(this.reading(`${line}b`, position, this.values(mask2), this.toe2));
+    if (mask0) out.push(this.reading(`${line}s`, position, this.values(mask0), undefined));
     return ACCEPTED;
+  }
+
+  /**
+   * The values object for the mapping's values in `mask`. Each combination is laid out once as a template (keys in
+   * mapping order) and copied: a copy of a template keeps its properties inside the object, where adding them one
+   * by one made a slower object with a separate property store, per row.
+   */
+  private values(mask: number): Values {
+    const c = this.compiled;
+    let template = this.valueTemplates.get(mask);
+    if (!template) {
+      template = {};
+      // Numbers that are not small integers, so the template's fields are laid out for any measured value.
+      for (let k = 0; k < c.values.length; k++)
+        if ((mask >> k) & 1) template[(c.values[k] as CompiledValue).parameter] = 0.5;
+      this.valueTemplates.set(mask, template);
+    }
+    const out: Partial<Record<ParameterName, number>> = { ...template };
+    for (let k = 0; k < c.values.length; k++) {
+      if ((mask >> k) & 1) out[(c.values[k] as CompiledValue).parameter] = this.found[k] as number;
+    }
+    return out;
+  }
+
+  /** The reading, copied from a template of its kind (see values) with its own id, position and values. */
+  private reading(idTail: string, position: number, values: Values, toe: Reading['toe']): Reading {
+    const withBasis = values.linearMisalignment !== undefined;
+    const kind = (toe === this.toe1 ? 0 : toe === this.toe2 ? 1 : 2) + (withBasis ? 3 : 0);
+    const template = (this.readingTemplates[kind] ??= this.layout(
+      withBasis ? { linearMisalignment: 0.5 } : {},
+      toe,
+    ));
+    const r: { -readonly [K in keyof Reading]: Reading[K] } = { ...template };
+    r.id = this.idPrefix + idTail;
+    r.position = position;
+    r.values = values;
+    return r;
+  }
+
+  // The template of a kind of reading: its fields in the order they are written, id, position and values as
+  // placeholders.
+  private layout(values: Values, toe: Reading['toe']): Reading {
+    const r: { -readonly [K in keyof Reading]: Reading[K] } = {
+      id: this.idPrefix,
+      round: this.round,
+      position: 0.5,
+      sampling: this.sampling,
+      values,
+      instrument: this.instrument,
+      source: this.source,
+      recordedAt: this.ctx.recordedAt,
+    };
+    if (toe) r.toe = toe;
+    else r.side = this.side;
+    if (this.ctx.seam) r.seamId = this.ctx.seam.id;
+    if (values.linearMisalignment !== undefined && this.mapping.misalignmentBasis) {
+      r.misalignmentBasis = this.mapping.misalignmentBasis;
+    }
+    if (this.ctx.examiner) r.examiner = this.ctx.examiner;
+    if (this.ctx.device) r.device = this.ctx.device;
+    return r;
   }
 }
 

@@ -1,11 +1,16 @@
 // Text chunks in, rows out, each with the line it starts on. papaparse's tokenizer does the quoting; the chunk
 // seams are handled here the way its own streamers do (the unfinished last row waits for the next chunk).
 import Papa, { type Parser } from 'papaparse';
+import { ArrayRow, SpanRow, type RowCells } from './row-cells.js';
 
 export type Newline = '\n' | '\r\n' | '\r';
 
 export interface RowSink {
   (cells: string[], line: number): void;
+}
+
+export interface CellsSink {
+  (row: RowCells, line: number): void;
 }
 
 /** Where a quoted field is never closed: the rest of the file would be read as one field. */
@@ -28,6 +33,10 @@ export function detectNewline(text: string): Newline {
 export class RowTokenizer {
   private readonly parser: Parser;
   private readonly breakChar: string;
+  private readonly delimiter: string;
+  private readonly newline: Newline;
+  private readonly arrayRow = new ArrayRow();
+  private readonly spanRow = new SpanRow();
   private partial = '';
   private base = 0;
   private nextLine = 1;
@@ -36,6 +45,50 @@ export class RowTokenizer {
     // papaparse types its `newline` option narrowly; '\r\n' is one of the values it accepts.
     this.parser = new Papa.Parser({ delimiter, newline: newline as '\n', quoteChar: '"' });
     this.breakChar = newline === '\r' ? '\r' : '\n';
+    this.delimiter = delimiter;
+    this.newline = newline;
+  }
+
+  /**
+   * As feed, but each row is handed over as cells to read in place (the row object is reused: read it before the
+   * sink returns). Text without a quote is split here exactly as papaparse's own fast mode splits it (rows at the
+   * newline, cells at the delimiter) without a string per cell; text with a quote goes through papaparse.
+   */
+  feedCells(text: string, final: boolean, sink: CellsSink): void {
+    const input = this.partial + text;
+    if (this.delimiter.length !== 1 || input.indexOf('"') !== -1) {
+      const row = this.arrayRow;
+      this.feed(text, final, (cells, line) => {
+        row.cells = cells;
+        sink(row, line);
+      });
+      return;
+    }
+    const nl = this.newline;
+    const row = this.spanRow;
+    let at = 0;
+    // papaparse reads no rows at all from empty text, even the final chunk.
+    if (input.length > 0) {
+      for (;;) {
+        const end = input.indexOf(nl, at);
+        if (end === -1) {
+          if (final) {
+            row.split(input, at, input.length, this.delimiter);
+            sink(row, this.nextLine++);
+          }
+          break;
+        }
+        row.split(input, at, end, this.delimiter);
+        sink(row, this.nextLine++);
+        at = end + nl.length;
+      }
+    }
+    if (final) {
+      this.partial = '';
+      return;
+    }
+    this.partial = input.substring(at);
+    this.base += at;
   }
 
   /** Tokenizes the next chunk; with `final`, also the last row. Throws UnclosedQuote on an unterminated quote. */

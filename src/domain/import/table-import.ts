@@ -259,11 +259,11 @@ export class TableImport {
     }
     const start = layout.dataStartLine;
     try {
-      tokenizer.feed(text, final, (cells, line) => {
+      tokenizer.feedCells(text, final, (row, line) => {
         if (line < start || this.refusal) return;
-        if (cells.length === 1 && (cells[0] as string).trim() === '') return;
+        if (row.count === 1 && row.text(0).trim() === '') return;
         this.dataRows++;
-        const out = reader.read(cells, line, this.readings);
+        const out = reader.read(row, line, this.readings);
         if (out.ok) {
           if (this.readings.length > MAX_IMPORT_READINGS) {
             this.refuse({

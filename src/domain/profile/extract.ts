@@ -1,9 +1,10 @@
 // Weld geometry from one surface profile across a butt weld (x across the seam, z up out of the face, plate 1 on
 // the left). Our method, step by step:
-//  1. each plate surface by a trimmed least-squares line over the outer fifth of the profile on its side, then
-//     grown inwards while points stay within the departure tolerance τ = max(4σ, 0.005 mm) (σ: plate scatter);
-//  2. the weld begins where three points in a row (a smoothing window's worth when smoothed) leave the plate line by more than τ; a dip below the line
-//     first is an undercut, its depth the deepest point;
+//  1. each plate surface by a trimmed least-squares line over about 64 points of the outer fifth of the profile on
+//     its side (σ, the plate scatter, is its RMS), then walked inwards while points stay within the departure
+//     tolerance τ = max(4σ, 0.005 mm) and refitted over every point the walk accepted;
+//  2. the weld begins where three points in a row (a smoothing window's worth when smoothed) leave the plate line
+//     by more than τ; a dip below the line first is an undercut (on either plate), its depth the deepest point;
 //  3. the steepest point of the face between toe and crown (slope over ±k points) splits the toe transition from
 //     the cap; the toe transition is fitted with Pratt's circle (toe radius, with its RMS residual), the cap next
 //     to it with another; the flank angle θ is the angle of their common tangent (perpendicular to the line of
@@ -15,6 +16,8 @@
 // Fit quality q = 1 − (RMS residual of all fitted points about their plate lines and toe circles) / 0.05 mm,
 // clipped to [0, 1], and 0 when a plate or toe could not be fitted. Slices with q < 0.6 are flagged.
 import { fitCirclePratt, fitLineTrimmed, lineFromSums, sseFromSums, type Circle, type Line } from './fits.js';
+import { walkPlate, walkSums } from './plate-walk.js';
+import { heightAboveChord, scanWeld } from './weld-scan.js';
 
 export const QUALITY_TOLERANCE_MM = 0.05;
 export const QUALITY_THRESHOLD = 0.6;
@@ -27,6 +30,7 @@ const TAU_MIN = 0.005;
 const OUTER_SHARE = 0.2;
 const MIN_PLATE_POINTS = 8;
 const MIN_TOE_POINTS = 4;
+const PLATE_SAMPLE = 64;
 const RAD = 180 / Math.PI;
 
 export interface ToeGeometry {
@@ -82,59 +86,36 @@ function plateSide(
   if (outer * 2 >= n) return 'too few points for two plates and a weld';
   const from = dir === 1 ? 0 : n - outer;
   const to = dir === 1 ? outer : n;
-  const fit = fitLineTrimmed(x, z, from, to, TAU_MIN / 4);
+  // A first estimate from about 64 points of the outer part; the walk below refits over every accepted point.
+  const fit = fitLineTrimmed(x, z, from, to, TAU_MIN / 4, Math.max(1, Math.floor(outer / PLATE_SAMPLE)));
   if (!fit) return 'plate line could not be fitted';
   const sigma = fit.rms;
   const tau = Math.max(4 * sigma, TAU_MIN);
-  let { a, b } = fit.line;
   // Sums over the accepted points, growing as the walk goes on; refitted at the end, its scatter in closed form.
   const x0 = x[from] as number;
   const z0 = z[from] as number;
-  let sx = 0,
-    sz = 0,
-    sxx = 0,
-    sxz = 0,
-    szz = 0,
-    cnt = 0;
-  const start = dir === 1 ? 0 : n - 1;
-  const end = dir === 1 ? n : -1;
-  let out = 0;
-  let departure = -1;
-  for (let i = start; i !== end; i += dir) {
-    const xa = x[i] as number;
-    const za = z[i] as number;
-    const r = za - a - b * xa;
-    if (r > tau || r < -tau) {
-      out++;
-      if (out === run) {
-        departure = i - (run - 1) * dir;
-        break;
-      }
-      continue;
-    }
-    out = 0;
-    const xi = xa - x0;
-    const zi = za - z0;
-    sx += xi;
-    sz += zi;
-    sxx += xi * xi;
-    sxz += xi * zi;
-    szz += zi * zi;
-    cnt++;
-  }
+  const departure = walkPlate(x, z, n, dir, fit.line.a, fit.line.b, tau, run, x0, z0);
+  const cnt = walkSums[0] as number;
+  const sx = walkSums[1] as number;
+  const sz = walkSums[2] as number;
+  const sxx = walkSums[3] as number;
+  const sxz = walkSums[4] as number;
+  const szz = walkSums[5] as number;
   if (departure < 0) return 'no weld found: the profile never leaves the plate line';
   const line = lineFromSums(cnt, sx, sz + cnt * z0, sxx, sxz + sx * z0, x0);
   if (!line || cnt < MIN_PLATE_POINTS) return `only ${cnt} points on the plate`;
-  a = line.a;
-  b = line.b;
+  const { a, b } = line;
   const sse = sseFromSums(cnt, sx, sz, sxx, sxz, szz, x0, z0, line);
   // A dip below the line before the weld rises is an undercut.
   let undercut = 0;
+  const end = dir === 1 ? n : -1;
   let i = departure;
-  while (i !== end && i * dir < n * dir) {
-    const r = (z[i] as number) - a - b * (x[i] as number);
-    if (r > tau) break;
-    if (-r > undercut) undercut = -r;
+  while (i !== end) {
+    // Depth below the line, taken before the test that ends the dip: code that only a rare slice reaches made the
+    // optimised walk fall back to the interpreter over and over.
+    const below = a + b * (x[i] as number) - (z[i] as number);
+    if (below > undercut) undercut = below;
+    if (below < -tau) break;
     i += dir;
   }
   if (undercut <= tau) undercut = 0;
@@ -150,36 +131,27 @@ interface ToeFit {
   readonly ok: boolean;
 }
 
-/** The toe on one side: steepest point, toe circle, cap circle, flank angle. `dir` +1 for plate 1's toe. */
+/**
+ * The toe on one side: toe circle, cap circle, flank angle, from the steepest point (and its slope) that scanWeld
+ * found between the departure and the crown. `dir` +1 for plate 1's toe.
+ */
 function toeOf(
   x: ArrayLike<number>,
   z: ArrayLike<number>,
   side: PlateSide,
   crown: number,
+  steep: number,
+  best: number,
   dir: 1 | -1,
-  k: number,
   problems: string[],
   label: string,
 ): ToeFit {
   const { line } = side;
-  const nx = -line.b / Math.hypot(1, line.b);
-  const nz = 1 / Math.hypot(1, line.b);
-  const ux = 1 / Math.hypot(1, line.b);
-  const uz = line.b / Math.hypot(1, line.b);
-  // Steepest point between the departure and the crown, slope measured in the plate's frame.
-  let steep = side.departure;
-  let best = -Infinity;
-  for (let i = side.departure; i * dir < crown * dir; i += dir) {
-    const p = i - k * dir;
-    const q = i + k * dir;
-    const rp = (z[p] as number) - at(line, x[p] as number);
-    const rq = (z[q] as number) - at(line, x[q] as number);
-    const s = (rq - rp) / (((x[q] as number) - (x[p] as number)) * dir);
-    if (s > best) {
-      best = s;
-      steep = i;
-    }
-  }
+  const norm = Math.sqrt(1 + line.b * line.b);
+  const nx = -line.b / norm;
+  const nz = 1 / norm;
+  const ux = 1 / norm;
+  const uz = line.b / norm;
   const slopeAngle = Math.atan(best) * RAD;
   // Toe transition: from where the points first rise off the line to the steepest point.
   const tauLow = Math.max(2 * side.sigma, TAU_MIN / 5);
@@ -290,9 +262,8 @@ export function extractSlice(
   return { ...smooth, noise: raw.noise, quality, flagged: quality < QUALITY_THRESHOLD, problems };
 }
 
-function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run: number): SliceGeometry {
-  const problems: string[] = [];
-  const fail = (why: string, noise = 0): SliceGeometry => ({
+function failed(n: number, why: string, noise: number): SliceGeometry {
+  return {
     points: n,
     toes: null,
     reinforcementHeight: null,
@@ -304,44 +275,31 @@ function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run:
     quality: 0,
     flagged: true,
     problems: [why],
-  });
-  if (n < 3 * MIN_PLATE_POINTS) return fail(`only ${n} points`);
+  };
+}
+
+function extractCore(x: ArrayLike<number>, z: ArrayLike<number>, n: number, run: number): SliceGeometry {
+  const problems: string[] = [];
+  if (n < 3 * MIN_PLATE_POINTS) return failed(n, `only ${n} points`, 0);
   const left = plateSide(x, z, n, 1, run);
-  if (typeof left === 'string') return fail(`plate 1: ${left}`);
+  if (typeof left === 'string') return failed(n, `plate 1: ${left}`, 0);
   const right = plateSide(x, z, n, -1, run);
-  if (typeof right === 'string') return fail(`plate 2: ${right}`, left.sigma);
-  if (left.departure >= right.departure) return fail('no weld found between the plates', left.sigma);
-  // Crown: highest point above the chord between the departures.
-  const xa = x[left.departure] as number;
-  const za = at(left.line, xa);
-  const xb = x[right.departure] as number;
-  const zb = at(right.line, xb);
-  const slope = (zb - za) / (xb - xa);
-  let crown = left.departure;
-  let top = -Infinity;
-  for (let i = left.departure; i <= right.departure; i++) {
-    const h = (z[i] as number) - za - slope * ((x[i] as number) - xa);
-    if (h > top) {
-      top = h;
-      crown = i;
-    }
-  }
+  if (typeof right === 'string') return failed(n, `plate 2: ${right}`, left.sigma);
+  if (left.departure >= right.departure) return failed(n, 'no weld found between the plates', left.sigma);
   const sigma = Math.max(left.sigma, right.sigma);
   const dx = ((x[n - 1] as number) - (x[0] as number)) / (n - 1);
   const k = sigma > 0.003 ? Math.max(1, Math.round(0.1 / dx)) : 1;
+  const scan = scanWeld(x, z, n, left.departure, right.departure, left.line, right.line, k);
+  const crown = scan.crown;
   if (crown - left.departure <= k || right.departure - crown <= k)
-    return fail('the weld is too narrow to find its toes', sigma);
-  const t1 = toeOf(x, z, left, crown, 1, k, problems, 'toe on plate 1');
-  const t2 = toeOf(x, z, right, crown, -1, k, problems, 'toe on plate 2');
+    return failed(n, 'the weld is too narrow to find its toes', sigma);
+  const t1 = toeOf(x, z, left, crown, scan.steep1, scan.slope1, 1, problems, 'toe on plate 1');
+  const t2 = toeOf(x, z, right, crown, scan.steep2, scan.slope2, -1, problems, 'toe on plate 2');
   // Height above the chord joining the toes, width between them.
-  const cdx = t2.geometry.x - t1.geometry.x;
-  const cdz = t2.geometry.z - t1.geometry.z;
-  const len = Math.hypot(cdx, cdz);
-  let h = 0;
-  for (let i = left.departure; i <= right.departure; i++) {
-    const d = (((x[i] as number) - t1.geometry.x) * -cdz + ((z[i] as number) - t1.geometry.z) * cdx) / len;
-    if (d > h) h = d;
-  }
+  const { x: x1, z: z1 } = t1.geometry;
+  const { x: x2, z: z2 } = t2.geometry;
+  const len = Math.sqrt((x2 - x1) ** 2 + (z2 - z1) ** 2);
+  const h = heightAboveChord(x, z, left.departure, right.departure, scan, x1, z1, x2, z2);
   const xm = (t1.geometry.x + t2.geometry.x) / 2;
   const e = at(right.line, xm) - at(left.line, xm);
   const beta = (Math.atan(left.line.b) - Math.atan(right.line.b)) * RAD;

@@ -78,7 +78,8 @@ export function sseFromSums(
 /**
  * Trimmed least squares: fit, then refit over the points within max(3·rms, floor) of the line, twice. Robust to
  * spatter, dropouts and the odd spike, which a scanner's plate segment may hold. The scatter comes from the sums
- * in closed form, so each round is one pass over the points.
+ * in closed form, so each round is one pass over the points. With `stride` > 1 only every stride-th point is
+ * used: a first estimate that the caller refines over all the points.
  */
 export function fitLineTrimmed(
   x: ArrayLike<number>,
@@ -86,29 +87,28 @@ export function fitLineTrimmed(
   from: number,
   to: number,
   floor: number,
+  stride = 1,
 ): { line: Line; rms: number; inliers: number } | null {
   const x0 = x[from] as number;
   const z0 = z[from] as number;
-  let line: Line | null = null;
+  let fitted = false;
+  let a = 0;
+  let b = 0;
   let rms = 0;
   let inliers = 0;
   for (let pass = 0; pass < 3; pass++) {
-    const tol = Math.max(3 * rms, floor);
+    // The first round takes every point (an infinite tolerance), later ones those near the last line.
+    const tol = fitted ? Math.max(3 * rms, floor) : Infinity;
     let sx = 0,
       sz = 0,
       sxx = 0,
       sxz = 0,
       szz = 0,
       n = 0;
-    const a = line?.a ?? 0;
-    const b = line?.b ?? 0;
-    for (let i = from; i < to; i++) {
+    for (let i = from; i < to; i += stride) {
       const xa = x[i] as number;
       const za = z[i] as number;
-      if (line) {
-        const r = za - a - b * xa;
-        if (r > tol || r < -tol) continue;
-      }
+      if (Math.abs(za - a - b * xa) > tol) continue;
       const xi = xa - x0;
       const zi = za - z0;
       sx += xi;
@@ -118,13 +118,23 @@ export function fitLineTrimmed(
       szz += zi * zi;
       n++;
     }
-    const next = lineFromSums(n, sx, sz + n * z0, sxx, sxz + sx * z0, x0);
-    if (!next) break;
-    line = next;
+    // lineFromSums and sseFromSums, written out: the rounds make no objects.
+    const det = n * sxx - sx * sx;
+    if (n < 2 || !(Math.abs(det) > 1e-18)) break;
+    const slope = (n * sxz - sx * sz) / det;
+    const a0 = (sz - slope * sx) / n;
+    // A trimming round that dropped no point refits the same set: every further round would repeat it.
+    const kept = pass > 0 && n === inliers && n === Math.ceil((to - from) / stride);
+    fitted = true;
+    b = slope;
+    a = a0 - slope * x0 + z0;
     inliers = n;
-    rms = Math.sqrt(sseFromSums(n, sx, sz, sxx, sxz, szz, x0, z0, next) / n);
+    // Residual sum of squares about z − z0 = a0 + b·(x − x0), from the sums.
+    const sse = szz - 2 * a0 * sz - 2 * slope * sxz + n * a0 * a0 + 2 * a0 * slope * sx + slope * slope * sxx;
+    rms = Math.sqrt((sse > 0 ? sse : 0) / n);
+    if (kept) break;
   }
-  return line ? { line, rms, inliers } : null;
+  return fitted ? { line: { a, b }, rms, inliers } : null;
 }
 
 export interface Circle {
@@ -136,15 +146,11 @@ export interface Circle {
   readonly n: number;
 }
 
-/** Mean of the points from..to (exclusive): both circle fits work about it. */
-function centroid(x: ArrayLike<number>, z: ArrayLike<number>, from: number, to: number): [number, number] {
-  let mx = 0;
-  let mz = 0;
-  for (let i = from; i < to; i++) {
-    mx += x[i] as number;
-    mz += z[i] as number;
-  }
-  return [mx / (to - from), mz / (to - from)];
+/** Mean of x (or z) over the points from..to (exclusive): both circle fits work about the centroid. */
+function mean(v: ArrayLike<number>, from: number, to: number): number {
+  let m = 0;
+  for (let i = from; i < to; i++) m += v[i] as number;
+  return m / (to - from);
 }
 
 /** Root-mean-square radial distance of the points from a circle: the fit's residual. */
@@ -159,7 +165,10 @@ function circleRms(
 ): number {
   let s = 0;
   for (let i = from; i < to; i++) {
-    const d = Math.hypot((x[i] as number) - cx, (z[i] as number) - cz) - r;
+    const dx = (x[i] as number) - cx;
+    const dz = (z[i] as number) - cz;
+    // sqrt, not Math.hypot: millimetre distances cannot overflow, and hypot is several times slower.
+    const d = Math.sqrt(dx * dx + dz * dz) - r;
     s += d * d;
   }
   return Math.sqrt(s / (to - from));
@@ -179,7 +188,8 @@ export function fitCirclePratt(
 ): Circle | null {
   const n = to - from;
   if (n < 3) return null;
-  const [mx, mz] = centroid(x, z, from, to);
+  const mx = mean(x, from, to);
+  const mz = mean(z, from, to);
   let Mxx = 0,
     Myy = 0,
     Mxy = 0,
@@ -253,7 +263,8 @@ export function fitCircleKasa(
 ): Circle | null {
   const n = to - from;
   if (n < 3) return null;
-  const [mx, mz] = centroid(x, z, from, to);
+  const mx = mean(x, from, to);
+  const mz = mean(z, from, to);
   let suu = 0,
     svv = 0,
     suv = 0,

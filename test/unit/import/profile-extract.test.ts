@@ -107,6 +107,16 @@ describe('extractSlice on generated welds', () => {
     expect(g.toes?.[1].undercutDepth).toBe(0);
   });
 
+  it('finds the same undercut beside the toe on plate 2 when the profile is mirrored', () => {
+    const { x, z } = weldProfile({ ...BASE, undercut: { depth: 0.3, width: 0.8 } });
+    const n = x.length;
+    const mx = Float64Array.from({ length: n }, (_, i) => -(x[n - 1 - i] as number));
+    const mz = Float64Array.from({ length: n }, (_, i) => z[n - 1 - i] as number);
+    const g = extractSlice(mx, mz);
+    expect(g.toes?.[1].undercutDepth).toBeCloseTo(0.3, 2);
+    expect(g.toes?.[0].undercutDepth).toBe(0);
+  });
+
   it('passes a profile with 0.01 mm noise and flags one with 0.05 mm (quality below the threshold)', () => {
     const quiet = extractSlice(...xz(weldProfile({ ...BASE, noise: 0.01, seed: 3 })));
     expect(quiet.quality).toBeGreaterThanOrEqual(QUALITY_THRESHOLD);
