@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { openDatabase } from '../../src/server/storage/sqlite/open.js';
 import { MIGRATIONS } from '../../src/server/storage/sqlite/migrations.js';
 import { SqliteStorage } from '../../src/server/storage/sqlite/sqlite-storage.js';
+import { PayloadBytes } from '../../src/server/sync/payload-bytes.js';
 import type { BatchPlan, PlannedRecord, Storage } from '../../src/server/storage/types.js';
 
 const T = (minute: number) => new Date(Date.UTC(2026, 11, 2, 9, minute)).toISOString();
@@ -313,25 +314,23 @@ function contract(name: string, make: () => Storage) {
     it('gives back each batch body exactly as received, whether its payload text was kept as bytes or not', async () => {
       const s = make();
       await withDevice(s);
-      const bytes = Buffer.from('{"records":["ä",1]}', 'utf8');
-      const text = bytes.toString('base64url');
-      const a = Buffer.from('A');
+      const text = Buffer.from('{"records":["ä",1]}', 'utf8').toString('base64url');
       // "QQ" and "QR" both decode to the byte "A"; only "QQ" is what encoding that byte writes back.
       const cases = [
         {
           id: 'b1',
           jws: `{"protected":"eyJ9","payload":"${text}","signature":"c2ln"}`,
-          payload: { text, bytes },
+          payload: PayloadBytes.decode(text),
         },
-        { id: 'b2', jws: '{ "payload" : "QR", "protected":"eyJ9" }', payload: { text: 'QR', bytes: a } },
+        { id: 'b2', jws: '{ "payload" : "QR", "protected":"eyJ9" }', payload: PayloadBytes.decode('QR') },
         {
           id: 'b3',
           jws: '{"payload":"QQ","protected":"eyJ9","signature":"QQ"}',
-          payload: { text: 'QQ', bytes: a },
+          payload: PayloadBytes.decode('QQ'),
         },
         { id: 'b4', jws: '{"payload":"QQ"}', payload: undefined },
         // A hint that does not match the body cannot change what is kept.
-        { id: 'b5', jws: '{"payload":"QUJD"}', payload: { text: 'QQ', bytes: a } },
+        { id: 'b5', jws: '{"payload":"QUJD"}', payload: PayloadBytes.decode('QQ') },
       ];
       for (const [i, c] of cases.entries()) {
         await s.applyBatch(

@@ -1,0 +1,35 @@
+// A JWS payload member with the bytes it decodes to. Decoding is the only way to make one, so the bytes are always
+// what the text says; and whether encoding those bytes writes the very same text is settled here, from the text's
+// alphabet, length and last character, without encoding a few hundred kilobytes back to compare.
+const BASE64URL = /^[A-Za-z0-9_-]*$/;
+const ALPHABET = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_';
+
+export class PayloadBytes {
+  private constructor(
+    readonly text: string,
+    readonly bytes: Buffer,
+    /** Whether bytes.toString('base64url') === text, so the text can be kept as its bytes and written back. */
+    readonly encodesBack: boolean,
+  ) {}
+
+  static decode(text: string): PayloadBytes {
+    const bytes = Buffer.from(text, 'base64url');
+    return new PayloadBytes(text, bytes, encodesBack(text, bytes.length));
+  }
+}
+
+/**
+ * Node decodes base64url leniently: it also reads "+" and "/", skips characters outside the alphabet, stops at "=",
+ * ignores a lone last character and drops the unused low bits of the last one. Text free of all that, whose unused
+ * bits are zero, is exactly what encoding its bytes writes.
+ */
+function encodesBack(text: string, byteLength: number): boolean {
+  const rest = text.length % 4;
+  if (rest === 1 || byteLength !== Math.floor((text.length * 3) / 4)) return false;
+  if (rest !== 0) {
+    const last = ALPHABET.indexOf(text.charAt(text.length - 1));
+    // Of the last character's six bits, a 2-character tail uses 2 and a 3-character tail uses 4.
+    if (last < 0 || (last & (rest === 2 ? 0b1111 : 0b11)) !== 0) return false;
+  }
+  return BASE64URL.test(text);
+}
