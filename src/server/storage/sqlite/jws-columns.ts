@@ -11,7 +11,9 @@ export interface JwsColumns {
 
 export function splitJws(received: string, payload: PayloadBytes | undefined): JwsColumns {
   if (payload?.encodesBack) {
-    const at = received.indexOf(payload.text);
+    // Where a body written as jwsBody writes it holds the payload; anywhere else the text is searched for.
+    const expected = received.indexOf('"payload":"') + '"payload":"'.length;
+    const at = received.startsWith(payload.text, expected) ? expected : received.indexOf(payload.text);
     if (at >= 0) {
       return {
         jws: received.slice(0, at) + received.slice(at + payload.text.length),
