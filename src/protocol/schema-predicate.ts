@@ -143,7 +143,11 @@ function compileObject(node: Node): Predicate | null {
       if (entry.default !== undefined || !entry.wrapped) return null;
       required = false;
       inner = entry.wrapped;
-    } else if (entry.type === 'exact_optional' || entry.type === 'nullish' || entry.type === 'undefinedable') {
+    } else if (
+      entry.type === 'exact_optional' ||
+      entry.type === 'nullish' ||
+      entry.type === 'undefinedable'
+    ) {
       return null;
     }
     const check = compile(inner);

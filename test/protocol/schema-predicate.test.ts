@@ -12,11 +12,7 @@ import {
   RECORD_KINDS,
   type RecordVerdict,
 } from '../../src/protocol/index.js';
-import {
-  compilePredicate,
-  NOT_SHOWN,
-  VALID_IN_ORDER,
-} from '../../src/protocol/schema-predicate.js';
+import { compilePredicate, NOT_SHOWN, VALID_IN_ORDER } from '../../src/protocol/schema-predicate.js';
 import { recordArb, sentRecordArb } from '../support/record-arbitraries.js';
 
 /** The verdict without the order hint, which only the predicates give. */

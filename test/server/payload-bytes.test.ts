@@ -7,10 +7,27 @@ const reEncodes = (text: string): boolean => Buffer.from(text, 'base64url').toSt
 
 // Mostly the base64url alphabet, with the characters Node's lenient decoder also reads or skips.
 const char = fc.oneof(
-  { weight: 20, arbitrary: fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_') },
+  {
+    weight: 20,
+    arbitrary: fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_'),
+  },
   {
     weight: 1,
-    arbitrary: fc.constantFrom('+', '/', '=', ' ', '.', '\n', '\t', '%', 'é', '\u00ff', '\u0100', '\uD800', '\uFFFF'),
+    arbitrary: fc.constantFrom(
+      '+',
+      '/',
+      '=',
+      ' ',
+      '.',
+      '\n',
+      '\t',
+      '%',
+      'é',
+      '\u00ff',
+      '\u0100',
+      '\uD800',
+      '\uFFFF',
+    ),
   },
 );
 

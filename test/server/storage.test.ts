@@ -343,6 +343,55 @@ function contract(name: string, make: () => Storage) {
       await s.close();
     });
 
+    it('keeps a payload without the bodies its records hold, whole when one was refused, and gives back each body', async () => {
+      // Read at the column level, so on a file as the server keeps it.
+      const s = SqliteStorage.open(tempFile());
+      await withDevice(s);
+      const body = (n: number) =>
+        `{"reading":{"id":"r${n}","note":"ø ${'x'.repeat(200)}"},"seamId":"seam-1"}`;
+      const sent = (batchId: string, records: { id: string; body: string }[]) => {
+        const payload = `{"batchId":"${batchId}","records":[${records.map((r) => `{"body":${r.body},"id":"${r.id}"}`).join(',')}]}`;
+        const text = Buffer.from(payload, 'utf8').toString('base64url');
+        const jws = `{"protected":"eyJ9","payload":"${text}","signature":"c2ln"}`;
+        const planned = records.map((r, i) => valid(i, r.id, r.body));
+        return {
+          jws,
+          size: Buffer.byteLength(payload),
+          plan: plan(batchId, planned, { jws, jwsPayload: PayloadBytes.decode(text) }),
+        };
+      };
+      const stored = () =>
+        s.database
+          .prepare('SELECT batch_id, length(jws_payload) AS kept, jws_payload_cuts AS cuts FROM batches')
+          .all() as {
+          batch_id: string;
+          kept: number;
+          cuts: string | null;
+        }[];
+      // New records, then a resend of one of them among new ones (a duplicate), then one id with other content.
+      const b1 = sent(
+        'b1',
+        [1, 2, 3].map((n) => ({ id: `r${n}`, body: body(n) })),
+      );
+      const b2 = sent('b2', [
+        { id: 'r3', body: body(3) },
+        { id: 'r4', body: body(4) },
+      ]);
+      const b3 = sent('b3', [
+        { id: 'r5', body: body(5) },
+        { id: 'r1', body: body(9) },
+      ]);
+      for (const b of [b1, b2, b3]) await s.applyBatch(b.plan);
+      const [k1, k2, k3] = stored();
+      expect(k1?.kept).toBe(b1.size - [1, 2, 3].reduce((n, i) => n + Buffer.byteLength(body(i)), 0));
+      expect(JSON.parse(k2?.cuts ?? '[]')).toHaveLength(2);
+      expect(k3).toMatchObject({ kept: b3.size, cuts: null });
+      for (const b of [b1, b2, b3]) expect((await s.getBatch(b.plan.batchId))?.jws).toBe(b.jws);
+      const dumped = (await s.dumpRecordTables())['batches'] as unknown[][];
+      expect(dumped.map((row) => row[4])).toEqual([b1.jws, b2.jws, b3.jws]);
+      await s.close();
+    });
+
     it('stores nothing of a batch from a device it does not know', async () => {
       const s = make();
       const dump = JSON.stringify(await s.dumpRecordTables());

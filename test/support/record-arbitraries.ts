@@ -40,7 +40,10 @@ const valuesArb = fc.record(
 );
 
 const examinerArb = fc.record(
-  { name: fc.string({ minLength: 1, maxLength: 80 }), qualification: fc.string({ minLength: 1, maxLength: 120 }) },
+  {
+    name: fc.string({ minLength: 1, maxLength: 80 }),
+    qualification: fc.string({ minLength: 1, maxLength: 120 }),
+  },
   { requiredKeys: ['name'] },
 );
 
@@ -60,7 +63,15 @@ export const readingArb = fc.record(
     instrument: fc.record(
       {
         id: fc.string({ minLength: 1, maxLength: 64 }),
-        kind: fc.constantFrom('toeGauge', 'misalignmentGauge', 'filletGauge', 'depthGauge', 'rule', 'scanner', 'other'),
+        kind: fc.constantFrom(
+          'toeGauge',
+          'misalignmentGauge',
+          'filletGauge',
+          'depthGauge',
+          'rule',
+          'scanner',
+          'other',
+        ),
         resolutionMm: fc.double({ min: 0, max: 10, noNaN: true, minExcluded: true }),
         resolutionDeg: fc.double({ min: 0, max: 10, noNaN: true, minExcluded: true }),
         calibratedOn: fc
@@ -95,7 +106,15 @@ const answerArb = fc.record(
 export const recordArb: fc.Arbitrary<Json> = fc
   .tuple(idArb, idArb, fc.integer({ min: 1, max: 2 ** 40 }), timestampArb)
   .chain(([id, seamId, seq, createdAt]) => {
-    const envelope = (kind: string, body: unknown) => ({ id, kind, schemaVersion: 1, seq, seamId, createdAt, body });
+    const envelope = (kind: string, body: unknown) => ({
+      id,
+      kind,
+      schemaVersion: 1,
+      seq,
+      seamId,
+      createdAt,
+      body,
+    });
     return fc.oneof(
       { weight: 6, arbitrary: readingArb.map((r) => envelope('reading', { seamId, reading: { ...r, id } })) },
       { weight: 1, arbitrary: readingArb.map((r) => envelope('reading', { seamId, reading: r })) },

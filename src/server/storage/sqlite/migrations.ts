@@ -250,4 +250,14 @@ CREATE TABLE review_inspectors (
 CREATE INDEX review_inspectors_by_name ON review_inspectors (name, seam_id);
 `,
   },
+  {
+    version: 4,
+    name: 'batch payloads kept without the record bodies stored beside them',
+    // The bodies of the records a batch brought are most of its payload and are stored in records already. When
+    // jws_payload_cuts is set, jws_payload lacks them: a JSON list of [offset in jws_payload, record id], in order,
+    // says where each record's stored body goes back to give the payload bytes as received.
+    sql: `
+ALTER TABLE batches ADD COLUMN jws_payload_cuts TEXT;
+`,
+  },
 ];
