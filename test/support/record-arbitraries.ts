@@ -220,9 +220,17 @@ function objects(value: Json): { [key: string]: Json }[] {
   return out;
 }
 
-/** Sets an own member, "__proto__" included (plain assignment would change the prototype instead). */
+/**
+ * Sets an own member, "__proto__" included (plain assignment would change the prototype instead), to a copy of the
+ * value: the generated values are shared, and one placed twice could end up inside itself.
+ */
 const put = (target: { [key: string]: Json }, key: string, value: Json) =>
-  Object.defineProperty(target, key, { value, enumerable: true, writable: true, configurable: true });
+  Object.defineProperty(target, key, {
+    value: JSON.parse(JSON.stringify(value)) as Json,
+    enumerable: true,
+    writable: true,
+    configurable: true,
+  });
 
 /** Applies damage to a copy. */
 function damage(record: Json, ops: readonly Op[]): Json {
