@@ -59,4 +59,11 @@ describe('a decoded payload', () => {
     expect(PayloadBytes.decode('QQ==').encodesBack).toBe(false);
     expect(PayloadBytes.decode('a+b/').encodesBack).toBe(false);
   });
+
+  it('reads as ASCII text only when every byte is ASCII', () => {
+    const plain = PayloadBytes.decode(Buffer.from('{"a":"b"}').toString('base64url'));
+    expect(plain.ascii()).toBe('{"a":"b"}');
+    expect(PayloadBytes.decode(Buffer.from('{"a":"ø"}').toString('base64url')).ascii()).toBeNull();
+    expect(PayloadBytes.decode(Buffer.from([0x7b, 0xff]).toString('base64url')).ascii()).toBeNull();
+  });
 });

@@ -347,8 +347,8 @@ function contract(name: string, make: () => Storage) {
       // Read at the column level, so on a file as the server keeps it.
       const s = SqliteStorage.open(tempFile());
       await withDevice(s);
-      const body = (n: number) =>
-        `{"reading":{"id":"r${n}","note":"ø ${'x'.repeat(200)}"},"seamId":"seam-1"}`;
+      const body = (n: number, note = 'x') =>
+        `{"reading":{"id":"r${n}","note":"${note.repeat(200)}"},"seamId":"seam-1"}`;
       const sent = (batchId: string, records: { id: string; body: string }[]) => {
         const payload = `{"batchId":"${batchId}","records":[${records.map((r) => `{"body":${r.body},"id":"${r.id}"}`).join(',')}]}`;
         const text = Buffer.from(payload, 'utf8').toString('base64url');
@@ -381,14 +381,17 @@ function contract(name: string, make: () => Storage) {
         { id: 'r5', body: body(5) },
         { id: 'r1', body: body(9) },
       ]);
-      for (const b of [b1, b2, b3]) await s.applyBatch(b.plan);
-      const [k1, k2, k3] = stored();
-      expect(k1?.kept).toBe(b1.size - [1, 2, 3].reduce((n, i) => n + Buffer.byteLength(body(i)), 0));
+      // A payload that is not ASCII is kept whole.
+      const b4 = sent('b4', [{ id: 'r6', body: body(6, 'ø') }]);
+      for (const b of [b1, b2, b3, b4]) await s.applyBatch(b.plan);
+      const [k1, k2, k3, k4] = stored();
+      expect(k1?.kept).toBe(b1.size - [1, 2, 3].reduce((n, i) => n + body(i).length, 0));
       expect(JSON.parse(k2?.cuts ?? '[]')).toHaveLength(2);
       expect(k3).toMatchObject({ kept: b3.size, cuts: null });
-      for (const b of [b1, b2, b3]) expect((await s.getBatch(b.plan.batchId))?.jws).toBe(b.jws);
+      expect(k4).toMatchObject({ kept: b4.size, cuts: null });
+      for (const b of [b1, b2, b3, b4]) expect((await s.getBatch(b.plan.batchId))?.jws).toBe(b.jws);
       const dumped = (await s.dumpRecordTables())['batches'] as unknown[][];
-      expect(dumped.map((row) => row[4])).toEqual([b1.jws, b2.jws, b3.jws]);
+      expect(dumped.map((row) => row[4])).toEqual([b1.jws, b2.jws, b3.jws, b4.jws]);
       await s.close();
     });
 

@@ -1,15 +1,28 @@
 // A JWS payload member with the bytes it decodes to. Decoding is the only way to make one, so the bytes are always
 // what the text says; and whether encoding those bytes writes the very same text is settled here, from the text's
 // length, last character and two characters it must not hold, without encoding a few hundred kilobytes back.
+import { isAscii } from 'node:buffer';
+
 const ALPHABET = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_';
 
 export class PayloadBytes {
+  #ascii: string | null | undefined;
+
   private constructor(
     readonly text: string,
     readonly bytes: Buffer,
     /** Whether bytes.toString('base64url') === text, so the text can be kept as its bytes and written back. */
     readonly encodesBack: boolean,
   ) {}
+
+  /**
+   * The bytes as a string when every one is ASCII (then it is also their UTF-8 text, and each character's index is
+   * its byte's offset); null otherwise. Decoded once.
+   */
+  ascii(): string | null {
+    if (this.#ascii === undefined) this.#ascii = isAscii(this.bytes) ? this.bytes.toString('latin1') : null;
+    return this.#ascii;
+  }
 
   static decode(text: string): PayloadBytes {
     const bytes = Buffer.from(text, 'base64url');

@@ -40,8 +40,12 @@ export function verifyJwsNode(jws: FlattenedJws, kind: JwsKind, key: KeyObject):
   if (!ok) throw new ProtocolError('signature', 'the signature does not verify with the key this kid names');
   const decoded = PayloadBytes.decode(jws.payload);
   const bytes = decoded.bytes;
-  if (!isUtf8(bytes)) throw new ProtocolError('malformed', 'the payload is not UTF-8');
-  const payloadText = bytes.toString('utf8');
+  // ASCII (the usual payload) is UTF-8 already; decoded that way once, the store can cut it by character.
+  let payloadText = decoded.ascii();
+  if (payloadText === null) {
+    if (!isUtf8(bytes)) throw new ProtocolError('malformed', 'the payload is not UTF-8');
+    payloadText = bytes.toString('utf8');
+  }
   let payload: unknown;
   try {
     payload = JSON.parse(payloadText) as unknown;

@@ -7,52 +7,52 @@
 export type Cut = readonly [at: number, recordId: string];
 
 export interface CutPayload {
-  readonly rest: Buffer;
+  /** What is kept: the payload less the bodies, one character per byte as the payload was. */
+  readonly rest: string;
   readonly cuts: readonly Cut[];
 }
 
 // In canonical JSON a record's members are sorted, so its body is its first member.
-const BODY_START = Buffer.from('{"body":');
+const BODY_START = '{"body":';
 /** How many record starts a body is looked for at before it stays in the payload. */
 const TRIES = 4;
 
 /**
- * Cuts the bodies out of the payload, looking for them in order from where the last one ended, so the search never
- * goes back and costs one pass at most. Bodies not found where expected simply stay. Null when nothing was cut.
+ * Cuts the bodies out of a payload given as its ASCII text (so a character's index is its byte's offset), looking
+ * for them in order from where the last one ended: the search never goes back and costs one pass at most. Bodies
+ * not found where expected simply stay. Null when nothing was cut.
  */
 export function cutBodies(
-  payload: Buffer,
+  ascii: string,
   records: readonly { readonly id: string; readonly body: string }[],
 ): CutPayload | null {
-  const parts: Buffer[] = [];
+  const pieces: string[] = [];
   const cuts: Cut[] = [];
   let kept = 0;
   let from = 0;
   let cursor = 0;
   for (const { id, body } of records) {
-    const bytes = Buffer.from(body, 'utf8');
-    for (let tries = 0; tries < TRIES && cursor < payload.length; tries++) {
-      const start = payload.indexOf(BODY_START, cursor);
+    for (let tries = 0; tries < TRIES && cursor < ascii.length; tries++) {
+      const start = ascii.indexOf(BODY_START, cursor);
       if (start < 0) {
-        cursor = payload.length;
+        cursor = ascii.length;
         break;
       }
       const at = start + BODY_START.length;
       cursor = at;
-      const end = at + bytes.length;
-      if (end <= payload.length && payload.compare(bytes, 0, bytes.length, at, end) === 0) {
-        parts.push(payload.subarray(from, at));
+      if (ascii.startsWith(body, at)) {
+        pieces.push(ascii.slice(from, at));
         kept += at - from;
         cuts.push([kept, id]);
-        from = cursor = end;
+        from = cursor = at + body.length;
         break;
       }
     }
-    if (cursor >= payload.length) break;
+    if (cursor >= ascii.length) break;
   }
   if (!cuts.length) return null;
-  parts.push(payload.subarray(from));
-  return { rest: Buffer.concat(parts, kept + payload.length - from), cuts };
+  pieces.push(ascii.slice(from));
+  return { rest: pieces.join(''), cuts };
 }
 
 /** The payload as received: the kept bytes with each record's stored body put back where it was cut. */

@@ -457,12 +457,15 @@ export class SqliteStorage implements Storage {
     let cut: { readonly payload: Buffer } | null = null;
     if (!replay) {
       const jws = splitJws(plan.jws, plan.jwsPayload);
+      // Cut by character, which is by byte only for an ASCII payload (the usual one); others are kept whole.
+      const ascii = jws.payload ? (plan.jwsPayload?.ascii() ?? null) : null;
       const bodies =
-        jws.payload &&
-        cutBodies(
-          jws.payload,
-          plan.records.filter((r) => r.status === 'valid'),
-        );
+        ascii === null
+          ? null
+          : cutBodies(
+              ascii,
+              plan.records.filter((r) => r.status === 'valid'),
+            );
       if (bodies && jws.payload) cut = { payload: jws.payload };
       s.insertBatch.run(
         plan.batchId,
@@ -472,7 +475,7 @@ export class SqliteStorage implements Storage {
         jws.jws,
         plan.records.length,
         plan.receivedAt,
-        bodies ? bodies.rest : jws.payload,
+        bodies ? Buffer.from(bodies.rest, 'latin1') : jws.payload,
         jws.payloadAt,
         bodies ? cutsText(bodies.cuts) : null,
       );
