@@ -18,7 +18,8 @@ import { recordArb, sentRecordArb } from '../support/record-arbitraries.js';
 /** The verdict without the order hint, which only the predicates give. */
 const plain = (verdict: RecordVerdict) => {
   if (verdict.status !== 'valid') return verdict;
-  const { bodyInOrder: _hint, ...rest } = verdict;
+  const rest: Partial<typeof verdict> = { ...verdict };
+  delete rest.bodyInOrder;
   return rest;
 };
 

@@ -241,12 +241,12 @@ function damage(record: Json, ops: readonly Op[]): Json {
     if (!target) continue;
     const keys = Object.keys(target);
     const key = keys[op.at % Math.max(keys.length, 1)];
-    if (op.kind === 'delete' && key !== undefined) delete target[key];
+    if (op.kind === 'delete' && key !== undefined) Reflect.deleteProperty(target, key);
     if (op.kind === 'replace' && key !== undefined) put(target, key, op.value);
     if (op.kind === 'add') put(target, op.key, op.value);
     if (op.kind === 'reverse') {
       const entries = Object.entries(target).reverse();
-      for (const k of keys) delete target[k];
+      for (const k of keys) Reflect.deleteProperty(target, k);
       for (const [k, v] of entries) put(target, k, v);
     }
   }
