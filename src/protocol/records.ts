@@ -15,6 +15,7 @@ import {
 } from '../domain/index.js';
 import { count, isoTimestamp, obj, text, toProblems, choice } from '../domain/model/schema-kit.js';
 import { viewingConditionsSchema } from '../domain/model/viewing.js';
+import { compilePredicate, NOT_SHOWN, VALID_IN_ORDER, type Predicate } from './schema-predicate.js';
 import { RECORD_SCHEMA_VERSION } from './version.js';
 
 export const RECORD_KINDS = [
@@ -117,7 +118,15 @@ interface Envelope<K extends RecordKind> {
 export type SyncRecord = { [K in RecordKind]: Envelope<K> }[RecordKind];
 
 export type RecordVerdict =
-  | { readonly status: 'valid'; readonly record: SyncRecord }
+  | {
+      readonly status: 'valid';
+      readonly record: SyncRecord;
+      /**
+       * True when record.body is the received body itself with every object's members in sorted order, so that
+       * JSON.stringify(record.body) is its canonical JSON.
+       */
+      readonly bodyInOrder?: boolean;
+    }
   /** A newer schema than this code knows: kept as sent, for a later version to read. */
   | {
       readonly status: 'parked';
@@ -162,7 +171,12 @@ export function nestsDeeperThan(value: unknown, limit: number): boolean {
 }
 
 /** Judges one record of a batch: valid (with its typed body), parked (newer schema) or rejected (with reasons). */
-export function judgeRecord(input: unknown): RecordVerdict {
+export const judgeRecord = (input: unknown): RecordVerdict => judge(input, true);
+
+/** judgeRecord with valibot alone: the reference the quick predicates are held to. */
+export const judgeRecordBySchema = (input: unknown): RecordVerdict => judge(input, false);
+
+function judge(input: unknown, quickly: boolean): RecordVerdict {
   if (typeof input !== 'object' || input === null || Array.isArray(input)) {
     return rejected(null, [{ path: 'record', message: 'must be an object' }]);
   }
@@ -198,6 +212,8 @@ export function judgeRecord(input: unknown): RecordVerdict {
       raw,
     };
   }
+  const quick = quickly ? quickJudge(raw) : null;
+  if (quick) return quick;
   const envelope = v.safeParse(envelopeSchema, raw, { abortPipeEarly: true });
   if (!envelope.success) return rejected(recordId, toProblems(envelope.issues));
   const { kind } = envelope.output;
@@ -206,6 +222,37 @@ export function judgeRecord(input: unknown): RecordVerdict {
   const record = { ...envelope.output, body: body.output } as SyncRecord;
   const problems = crossChecks(record);
   return problems.length ? rejected(recordId, problems) : { status: 'valid', record };
+}
+
+// The schemas as predicates: a record they show valid is valid for valibot too, with the same output; anything
+// else goes to valibot, which gives the reasons. A kind whose schema the predicate cannot express has none.
+const quickEnvelope = compilePredicate(envelopeSchema);
+const quickBodies = Object.fromEntries(
+  RECORD_KINDS.map((kind) => [kind, compilePredicate(recordBodySchemas[kind])]),
+) as Record<RecordKind, Predicate | null>;
+
+/** The verdict on a record the predicates show valid, or null to ask valibot. */
+function quickJudge(raw: Readonly<Record<string, unknown>>): RecordVerdict | null {
+  if (!quickEnvelope || quickEnvelope(raw) === NOT_SHOWN) return null;
+  const kind = raw['kind'] as RecordKind;
+  const body = raw['body'];
+  const check = quickBodies[kind];
+  const shown = check ? check(body) : NOT_SHOWN;
+  if (shown === NOT_SHOWN) return null;
+  // valibot's output for closed objects without defaults is a copy of its input, members in schema order.
+  const record = {
+    id: raw['id'],
+    kind,
+    schemaVersion: raw['schemaVersion'],
+    seq: raw['seq'],
+    seamId: raw['seamId'],
+    createdAt: raw['createdAt'],
+    body,
+  } as SyncRecord;
+  const problems = crossChecks(record);
+  return problems.length
+    ? rejected(record.id, problems)
+    : { status: 'valid', record, bodyInOrder: shown === VALID_IN_ORDER };
 }
 
 /** What a record says about itself that must agree; nothing here looks at other records. */

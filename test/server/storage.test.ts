@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { openDatabase } from '../../src/server/storage/sqlite/open.js';
 import { MIGRATIONS } from '../../src/server/storage/sqlite/migrations.js';
 import { SqliteStorage } from '../../src/server/storage/sqlite/sqlite-storage.js';
+import { PayloadBytes } from '../../src/server/sync/payload-bytes.js';
 import type { BatchPlan, PlannedRecord, Storage } from '../../src/server/storage/types.js';
 
 const T = (minute: number) => new Date(Date.UTC(2026, 11, 2, 9, minute)).toISOString();
@@ -313,25 +314,23 @@ function contract(name: string, make: () => Storage) {
     it('gives back each batch body exactly as received, whether its payload text was kept as bytes or not', async () => {
       const s = make();
       await withDevice(s);
-      const bytes = Buffer.from('{"records":["ä",1]}', 'utf8');
-      const text = bytes.toString('base64url');
-      const a = Buffer.from('A');
+      const text = Buffer.from('{"records":["ä",1]}', 'utf8').toString('base64url');
       // "QQ" and "QR" both decode to the byte "A"; only "QQ" is what encoding that byte writes back.
       const cases = [
         {
           id: 'b1',
           jws: `{"protected":"eyJ9","payload":"${text}","signature":"c2ln"}`,
-          payload: { text, bytes },
+          payload: PayloadBytes.decode(text),
         },
-        { id: 'b2', jws: '{ "payload" : "QR", "protected":"eyJ9" }', payload: { text: 'QR', bytes: a } },
+        { id: 'b2', jws: '{ "payload" : "QR", "protected":"eyJ9" }', payload: PayloadBytes.decode('QR') },
         {
           id: 'b3',
           jws: '{"payload":"QQ","protected":"eyJ9","signature":"QQ"}',
-          payload: { text: 'QQ', bytes: a },
+          payload: PayloadBytes.decode('QQ'),
         },
         { id: 'b4', jws: '{"payload":"QQ"}', payload: undefined },
         // A hint that does not match the body cannot change what is kept.
-        { id: 'b5', jws: '{"payload":"QUJD"}', payload: { text: 'QQ', bytes: a } },
+        { id: 'b5', jws: '{"payload":"QUJD"}', payload: PayloadBytes.decode('QQ') },
       ];
       for (const [i, c] of cases.entries()) {
         await s.applyBatch(
@@ -341,6 +340,58 @@ function contract(name: string, make: () => Storage) {
       for (const c of cases) expect((await s.getBatch(c.id))?.jws).toBe(c.jws);
       const dumped = (await s.dumpRecordTables())['batches'] as unknown[][];
       expect(dumped.map((row) => row[4])).toEqual(cases.map((c) => c.jws));
+      await s.close();
+    });
+
+    it('keeps a payload without the bodies its records hold, whole when one was refused, and gives back each body', async () => {
+      // Read at the column level, so on a file as the server keeps it.
+      const s = SqliteStorage.open(tempFile());
+      await withDevice(s);
+      const body = (n: number, note = 'x') =>
+        `{"reading":{"id":"r${n}","note":"${note.repeat(200)}"},"seamId":"seam-1"}`;
+      const sent = (batchId: string, records: { id: string; body: string }[]) => {
+        const payload = `{"batchId":"${batchId}","records":[${records.map((r) => `{"body":${r.body},"id":"${r.id}"}`).join(',')}]}`;
+        const text = Buffer.from(payload, 'utf8').toString('base64url');
+        const jws = `{"protected":"eyJ9","payload":"${text}","signature":"c2ln"}`;
+        const planned = records.map((r, i) => valid(i, r.id, r.body));
+        return {
+          jws,
+          size: Buffer.byteLength(payload),
+          plan: plan(batchId, planned, { jws, jwsPayload: PayloadBytes.decode(text) }),
+        };
+      };
+      const stored = () =>
+        s.database
+          .prepare('SELECT batch_id, length(jws_payload) AS kept, jws_payload_cuts AS cuts FROM batches')
+          .all() as {
+          batch_id: string;
+          kept: number;
+          cuts: string | null;
+        }[];
+      // New records, then a resend of one of them among new ones (a duplicate), then one id with other content.
+      const b1 = sent(
+        'b1',
+        [1, 2, 3].map((n) => ({ id: `r${n}`, body: body(n) })),
+      );
+      const b2 = sent('b2', [
+        { id: 'r3', body: body(3) },
+        { id: 'r4', body: body(4) },
+      ]);
+      const b3 = sent('b3', [
+        { id: 'r5', body: body(5) },
+        { id: 'r1', body: body(9) },
+      ]);
+      // A payload that is not ASCII is kept whole.
+      const b4 = sent('b4', [{ id: 'r6', body: body(6, 'ø') }]);
+      for (const b of [b1, b2, b3, b4]) await s.applyBatch(b.plan);
+      const [k1, k2, k3, k4] = stored();
+      expect(k1?.kept).toBe(b1.size - [1, 2, 3].reduce((n, i) => n + body(i).length, 0));
+      expect(JSON.parse(k2?.cuts ?? '[]')).toHaveLength(2);
+      expect(k3).toMatchObject({ kept: b3.size, cuts: null });
+      expect(k4).toMatchObject({ kept: b4.size, cuts: null });
+      for (const b of [b1, b2, b3, b4]) expect((await s.getBatch(b.plan.batchId))?.jws).toBe(b.jws);
+      const dumped = (await s.dumpRecordTables())['batches'] as unknown[][];
+      expect(dumped.map((row) => row[4])).toEqual([b1.jws, b2.jws, b3.jws, b4.jws]);
       await s.close();
     });
 

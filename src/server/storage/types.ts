@@ -3,6 +3,7 @@
 // asynchronous for that reason even where SQLite answers at once. Times are ISO 8601 UTC strings from the server
 // clock (never a device's); JSON columns hold canonical JSON text.
 import type { RecordResult } from '../../protocol/index.js';
+import type { PayloadBytes } from '../sync/payload-bytes.js';
 
 export type Role = 'supervisor' | 'inspector';
 export type SeamNamespace = 'live' | 'demo';
@@ -111,10 +112,10 @@ export interface BatchPlan {
   /** The request body exactly as received (the JWS), kept for audit. */
   readonly jws: string;
   /**
-   * The JWS payload member as it appears in jws, and the bytes it decodes to: a store may keep the bytes instead
-   * of the text, when they encode back to exactly that text.
+   * The JWS payload member as it appears in jws, decoded: a store may keep the bytes instead of the text, when they
+   * encode back to exactly that text.
    */
-  readonly jwsPayload?: { readonly text: string; readonly bytes: Uint8Array };
+  readonly jwsPayload?: PayloadBytes;
   readonly receivedAt: string;
   readonly records: readonly PlannedRecord[];
   readonly deviceGrades: readonly { readonly seamId: string; readonly grade: string }[];

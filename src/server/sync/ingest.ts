@@ -114,6 +114,10 @@ export function planRecords(
         // A valid reading body is, member for member, the one received: its schema holds closed objects only and
         // changes no value. Written from the received value, whose members a canonical payload keeps in order, the
         // canonical text comes from JSON.stringify. (Set-ups can differ: a record-of-levels schema drops some keys.)
+        // When the judge already saw every member in order, no second walk is needed to know that.
+        const body = verdict.bodyInOrder
+          ? JSON.stringify(r.body)
+          : canonicalJson(r.kind === 'reading' ? (input as { body: unknown }).body : r.body);
         return {
           index,
           status: 'valid',
@@ -122,7 +126,7 @@ export function planRecords(
           schemaVersion: r.schemaVersion,
           seamId: r.seamId,
           seq: r.seq,
-          body: canonicalJson(r.kind === 'reading' ? (input as { body: unknown }).body : r.body),
+          body,
           createdAt: r.createdAt,
         };
       }
@@ -163,7 +167,7 @@ export async function ingestBatch(
     timed(stage, t - mark);
     mark = t;
   };
-  const { device, jws, verified } = await verifyDeviceRequest(deps, bodyText, 'batch');
+  const { device, verified } = await verifyDeviceRequest(deps, bodyText, 'batch');
   lap('parseVerify');
   const payload = parseBatchPayload(verified.payload);
   const readings = new Map<number, Reading>();
@@ -181,7 +185,7 @@ export async function ingestBatch(
     // The payload's bytes are checked UTF-8, so this is the hash of payloadText's UTF-8 as well.
     payloadSha256: sha256(verified.payloadBytes),
     jws: bodyText,
-    jwsPayload: { text: jws.payload, bytes: verified.payloadBytes },
+    jwsPayload: verified.payloadDecoded,
     receivedAt,
     records: planned,
     deviceGrades: (payload.deviceGrades ?? []).map((g) => ({ seamId: g.seamId, grade: canonicalJson(g) })),

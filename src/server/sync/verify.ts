@@ -12,13 +12,15 @@ import {
   type JwsKind,
   type Verified,
 } from '../../protocol/index.js';
+import { PayloadBytes } from './payload-bytes.js';
 
 export const publicKeyObject = (publicJwk: string): KeyObject =>
   createPublicKey({ key: JSON.parse(publicJwk) as Record<string, string>, format: 'jwk' });
 
-/** What was verified, with the payload's bytes (the store may keep those in place of their base64url text). */
+/** What was verified, with the payload decoded (the store may keep its bytes in place of their base64url text). */
 export interface VerifiedBytes extends Verified {
   readonly payloadBytes: Buffer;
+  readonly payloadDecoded: PayloadBytes;
 }
 
 export function verifyJwsNode(jws: FlattenedJws, kind: JwsKind, key: KeyObject): VerifiedBytes {
@@ -36,14 +38,19 @@ export function verifyJwsNode(jws: FlattenedJws, kind: JwsKind, key: KeyObject):
     ok = false;
   }
   if (!ok) throw new ProtocolError('signature', 'the signature does not verify with the key this kid names');
-  const bytes = Buffer.from(jws.payload, 'base64url');
-  if (!isUtf8(bytes)) throw new ProtocolError('malformed', 'the payload is not UTF-8');
-  const payloadText = bytes.toString('utf8');
+  const decoded = PayloadBytes.decode(jws.payload);
+  const bytes = decoded.bytes;
+  // ASCII (the usual payload) is UTF-8 already; decoded that way once, the store can cut it by character.
+  let payloadText = decoded.ascii();
+  if (payloadText === null) {
+    if (!isUtf8(bytes)) throw new ProtocolError('malformed', 'the payload is not UTF-8');
+    payloadText = bytes.toString('utf8');
+  }
   let payload: unknown;
   try {
     payload = JSON.parse(payloadText) as unknown;
   } catch {
     throw new ProtocolError('malformed', 'the payload is not JSON');
   }
-  return { header, payloadText, payload, payloadBytes: bytes };
+  return { header, payloadText, payload, payloadBytes: bytes, payloadDecoded: decoded };
 }

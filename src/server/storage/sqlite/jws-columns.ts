@@ -1,6 +1,7 @@
 // How a batch's JWS, kept exactly as received, is laid out in the batches table: either whole in `jws`, or with the
 // payload member cut out and kept as the bytes it encodes (a quarter fewer bytes to write). The cut is made only
 // when encoding those bytes gives back exactly the text that was cut, so joining always restores the received body.
+import type { PayloadBytes } from '../../sync/payload-bytes.js';
 
 export interface JwsColumns {
   readonly jws: string;
@@ -8,17 +9,15 @@ export interface JwsColumns {
   readonly payloadAt: number | null;
 }
 
-export function splitJws(
-  received: string,
-  payload: { readonly text: string; readonly bytes: Uint8Array } | undefined,
-): JwsColumns {
-  if (payload) {
-    const at = received.indexOf(payload.text);
-    const bytes = Buffer.from(payload.bytes.buffer, payload.bytes.byteOffset, payload.bytes.byteLength);
-    if (at >= 0 && bytes.toString('base64url') === payload.text) {
+export function splitJws(received: string, payload: PayloadBytes | undefined): JwsColumns {
+  if (payload?.encodesBack) {
+    // Where a body written as jwsBody writes it holds the payload; anywhere else the text is searched for.
+    const expected = received.indexOf('"payload":"') + '"payload":"'.length;
+    const at = received.startsWith(payload.text, expected) ? expected : received.indexOf(payload.text);
+    if (at >= 0) {
       return {
         jws: received.slice(0, at) + received.slice(at + payload.text.length),
-        payload: bytes,
+        payload: payload.bytes,
         payloadAt: at,
       };
     }

@@ -266,4 +266,14 @@ ALTER TABLE changes ADD COLUMN inspector_id INTEGER REFERENCES accounts (id);
 CREATE INDEX changes_by_inspector ON changes (inspector_id, seq);
 `,
   },
+  {
+    version: 5,
+    name: 'batch payloads kept without the record bodies stored beside them',
+    // The bodies of the records a batch brought are most of its payload and are stored in records already. When
+    // jws_payload_cuts is set, jws_payload lacks them: a JSON list of [offset in jws_payload, record id], in order,
+    // says where each record's stored body goes back to give the payload bytes as received.
+    sql: `
+ALTER TABLE batches ADD COLUMN jws_payload_cuts TEXT;
+`,
+  },
 ];

@@ -37,6 +37,7 @@ import type {
 } from '../types.js';
 import { toChange, type ChangeDbRow } from './change-rows.js';
 import { joinJws, splitJws } from './jws-columns.js';
+import { cutBodies, cutsText, parseCuts, restoreBodies } from './payload-cuts.js';
 import { openDatabase, type Db, type OpenOptions } from './open.js';
 import { ReviewStatements } from './review-store.js';
 
@@ -120,7 +121,7 @@ const toRecord = (r: RecordRow): StoredRecord => ({
 const RECORD_TABLE_DUMPS = {
   // The JWS as received, whichever way it is laid out in its columns (joined below).
   batches: `SELECT batch_id, device_kid, device_seq, payload_sha256, jws, record_count, received_at, jws_payload,
-    jws_payload_at FROM batches ORDER BY batch_id`,
+    jws_payload_at, jws_payload_cuts FROM batches ORDER BY batch_id`,
   records: 'SELECT * FROM records ORDER BY receive_seq',
   parked_records: 'SELECT * FROM parked_records ORDER BY id',
   rejections: 'SELECT * FROM rejections ORDER BY batch_id, record_index',
@@ -207,9 +208,11 @@ export class SqliteStorage implements Storage {
       batchOwner: p('SELECT device_kid, payload_sha256 FROM batches WHERE batch_id = ?'),
       insertBatch: p(
         `INSERT INTO batches (batch_id, device_kid, device_seq, payload_sha256, jws, record_count, received_at,
-           jws_payload, jws_payload_at)
-         VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+           jws_payload, jws_payload_at, jws_payload_cuts)
+         VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
       ),
+      uncutBatch: p('UPDATE batches SET jws_payload = ?, jws_payload_cuts = NULL WHERE batch_id = ?'),
+      bodyById: p('SELECT body FROM records WHERE id = ?').pluck(),
       insertRecord: p(
         `INSERT INTO records (id, kind, schema_version, seam_id, device_kid, batch_id, device_seq, body,
            device_created_at, received_at)
@@ -525,8 +528,19 @@ export class SqliteStorage implements Storage {
       };
     }
     const replay = known !== undefined;
+    let cut: { readonly payload: Buffer } | null = null;
     if (!replay) {
       const jws = splitJws(plan.jws, plan.jwsPayload);
+      // Cut by character, which is by byte only for an ASCII payload (the usual one); others are kept whole.
+      const ascii = jws.payload ? (plan.jwsPayload?.ascii() ?? null) : null;
+      const bodies =
+        ascii === null
+          ? null
+          : cutBodies(
+              ascii,
+              plan.records.filter((r) => r.status === 'valid'),
+            );
+      if (bodies && jws.payload) cut = { payload: jws.payload };
       s.insertBatch.run(
         plan.batchId,
         plan.deviceKid,
@@ -535,8 +549,9 @@ export class SqliteStorage implements Storage {
         jws.jws,
         plan.records.length,
         plan.receivedAt,
-        jws.payload,
+        bodies ? Buffer.from(bodies.rest, 'latin1') : jws.payload,
         jws.payloadAt,
+        bodies ? cutsText(bodies.cuts) : null,
       );
     }
     const results: RecordResult[] = [];
@@ -622,6 +637,9 @@ export class SqliteStorage implements Storage {
       }
       results.push(result);
     }
+    // A body was cut on the guess that the records table would hold it; a record refused for an id held with other
+    // content does not, so the payload is then kept whole (rare: the guess holds for accepted and duplicate ones).
+    if (cut && conflicts.length) s.uncutBatch.run(cut.payload, plan.batchId);
     for (const seamId of seamsSeen) s.linkDeviceSeam.run(plan.deviceKid, seamId);
     for (const g of plan.deviceGrades)
       s.upsertDeviceGrade.run(g.seamId, plan.deviceKid, plan.deviceSeq, g.grade);
@@ -641,6 +659,7 @@ export class SqliteStorage implements Storage {
           received_at: string;
           jws_payload: Buffer | null;
           jws_payload_at: number | null;
+          jws_payload_cuts: string | null;
         }
       | undefined;
     return (
@@ -649,11 +668,17 @@ export class SqliteStorage implements Storage {
         deviceKid: row.device_kid,
         deviceSeq: row.device_seq,
         payloadSha256: row.payload_sha256,
-        jws: joinJws(row.jws, row.jws_payload, row.jws_payload_at),
+        jws: joinJws(row.jws, this.#payloadOf(row.jws_payload, row.jws_payload_cuts), row.jws_payload_at),
         recordCount: row.record_count,
         receivedAt: row.received_at,
       }
     );
+  }
+
+  /** A batch's payload bytes as received, with any record bodies that were cut out put back. */
+  #payloadOf(kept: Buffer | null, cuts: string | null): Buffer | null {
+    if (kept === null || cuts === null) return kept;
+    return restoreBodies(kept, parseCuts(cuts), (id) => this.#s.bodyById.get(id) as string | undefined);
   }
 
   async recordSecurityEvent(
@@ -964,8 +989,13 @@ export class SqliteStorage implements Storage {
         dump[table] = this.#db.prepare(sql).raw(true).all();
       }
       dump['batches'] = (dump['batches'] as unknown[][]).map((row) => {
-        const [jwsPayload, jwsPayloadAt] = row.slice(7) as [Buffer | null, number | null];
-        return [...row.slice(0, 4), joinJws(row[4] as string, jwsPayload, jwsPayloadAt), ...row.slice(5, 7)];
+        const [jwsPayload, jwsPayloadAt, cuts] = row.slice(7) as [
+          Buffer | null,
+          number | null,
+          string | null,
+        ];
+        const payload = this.#payloadOf(jwsPayload, cuts);
+        return [...row.slice(0, 4), joinJws(row[4] as string, payload, jwsPayloadAt), ...row.slice(5, 7)];
       });
       return dump;
     })();
