@@ -1,5 +1,5 @@
 // fast-check arbitraries for sync records as a device sends them: valid records of the kinds judged member by member
-// (readings, rounds, checklist answers, tag links), and the same records damaged one member at a time.
+// (readings, rounds, checklist answers, tag links, viewing conditions), and the same records damaged one member at a time.
 import fc from 'fast-check';
 import { CHECKLIST_ANSWERS, CHECKLIST_ITEMS, PARAMETER_NAMES, PARAMETERS } from '../../src/domain/index.js';
 import { TAG_ACTIONS, TAG_VIA } from '../../src/protocol/index.js';
