@@ -108,8 +108,10 @@ export function misalignmentSection(
   const angular = angularOf(setup, mis);
   const surfaces = surfacesOf(setup.joint).map((s, i) => {
     const b = bending.b[i] ?? 0;
+    // Spelt out rather than spread: copying by spread was a measurable share of the assessment.
     return {
-      ...s,
+      plate: s.plate,
+      surface: s.surface,
       bendingRatio: b,
       km: 1 + b,
       state: b > 0 ? 'tension' : b < 0 ? 'compression' : 'none',

@@ -91,6 +91,17 @@ function fmt(x: number, digits = 3): string {
   const f = 10 ** decimals;
   return String(Math.round(x * f) / f);
 }
+// Targets and pitches repeat across parameters and seams (a few resolutions, one pitch), so their text is kept;
+// the bound stops a stream of odd values from growing it without end.
+const repeated = new Map<number, string>();
+function fmtRepeated(x: number): string {
+  let s = repeated.get(x);
+  if (s === undefined) {
+    s = fmt(x);
+    if (repeated.size < 1000) repeated.set(x, s);
+  }
+  return s;
+}
 const pct = (p: number): string =>
   p < 0.001 ? 'under 0.1 %' : p > 0.999 ? 'over 99.9 %' : `${fmt(100 * p, 2)} %`;
 
@@ -202,12 +213,12 @@ export function adequacyOf(input: AdequacyInput): Adequacy {
     );
     if (more === null)
       parts.push(
-        `the scatter is too large to bring the interval within ±${fmt(target.value)}${u} by measuring more`,
+        `the scatter is too large to bring the interval within ±${fmtRepeated(target.value)}${u} by measuring more`,
       );
-    else if (more === 0) parts.push(`within ±${fmt(target.value)}${u}: enough positions`);
+    else if (more === 0) parts.push(`within ±${fmtRepeated(target.value)}${u}: enough positions`);
     else
       parts.push(
-        `measure about ${more} more position${more === 1 ? '' : 's'} to bring it within ±${fmt(target.value)}${u}`,
+        `measure about ${more} more position${more === 1 ? '' : 's'} to bring it within ±${fmtRepeated(target.value)}${u}`,
       );
     if (!settle.settled) parts.push('the running mean has not settled yet');
   }
@@ -215,7 +226,7 @@ export function adequacyOf(input: AdequacyInput): Adequacy {
     const level = `level ${risk.requiredLevel ?? 'required'}`;
     parts.push(
       risk.unmeasuredPositions > 0
-        ? `chance that one unmeasured position misses ${level}: ${pct(risk.onePosition)}; that at least one of the ${risk.unmeasuredPositions} unmeasured positions at the ${fmt(risk.pitchMm ?? 0)} mm pitch does: ${pct(risk.anyUnmeasured)} (positions assumed independent)`
+        ? `chance that one unmeasured position misses ${level}: ${pct(risk.onePosition)}; that at least one of the ${risk.unmeasuredPositions} unmeasured positions at the ${fmtRepeated(risk.pitchMm ?? 0)} mm pitch does: ${pct(risk.anyUnmeasured)} (positions assumed independent)`
         : `every position at the pitch was measured; chance that another position would miss ${level}: ${pct(risk.onePosition)}`,
     );
   }

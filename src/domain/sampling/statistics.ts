@@ -108,6 +108,18 @@ export function pitchOf(positions: readonly number[]): number | null {
   for (let i = 1; i < positions.length && sorted; i++)
     sorted = (positions[i] as number) >= (positions[i - 1] as number);
   const s = sorted ? positions : Float64Array.from(positions).sort();
+  // Readings are usually taken at one pitch: when every distinct gap is the same, it is the median, and the
+  // gap array and its sort are skipped.
+  let first = 0;
+  let even = true;
+  for (let i = 1; i < s.length && even; i++) {
+    const gap = (s[i] as number) - (s[i - 1] as number);
+    if (gap > 0) {
+      if (first === 0) first = gap;
+      else even = gap === first;
+    }
+  }
+  if (even) return first > 0 ? first : null;
   const gaps = new Float64Array(Math.max(0, s.length - 1));
   let n = 0;
   for (let i = 1; i < s.length; i++) {
