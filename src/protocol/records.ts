@@ -226,13 +226,19 @@ function judge(input: unknown, quickly: boolean): RecordVerdict {
 
 // The schemas as predicates: a record they show valid is valid for valibot too, with the same output; anything
 // else goes to valibot, which gives the reasons. A kind whose schema the predicate cannot express has none.
-const quickEnvelope = compilePredicate(envelopeSchema);
-const quickBodies = Object.fromEntries(
-  RECORD_KINDS.map((kind) => [kind, compilePredicate(recordBodySchemas[kind])]),
-) as Record<RecordKind, Predicate | null>;
+// Compiled on the first judgement, not at import: the tablet loads this module but never judges records.
+let quick: { envelope: Predicate | null; bodies: Record<RecordKind, Predicate | null> } | null = null;
+const quickPredicates = () =>
+  (quick ??= {
+    envelope: compilePredicate(envelopeSchema),
+    bodies: Object.fromEntries(
+      RECORD_KINDS.map((kind) => [kind, compilePredicate(recordBodySchemas[kind])]),
+    ) as Record<RecordKind, Predicate | null>,
+  });
 
 /** The verdict on a record the predicates show valid, or null to ask valibot. */
 function quickJudge(raw: Readonly<Record<string, unknown>>): RecordVerdict | null {
+  const { envelope: quickEnvelope, bodies: quickBodies } = quickPredicates();
   if (!quickEnvelope || quickEnvelope(raw) === NOT_SHOWN) return null;
   const kind = raw['kind'] as RecordKind;
   const body = raw['body'];

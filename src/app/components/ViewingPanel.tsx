@@ -101,7 +101,14 @@ export function ViewingPanel(props: {
         {...bind('illuminanceLx')}
         hint="Measured with a light meter at the surface examined"
       />
-      <NumberField label="Viewing distance" unit="mm" step={50} min={0} {...bind('distanceMm')} />
+      <NumberField
+        label="Viewing distance"
+        unit="mm"
+        step={50}
+        min={0}
+        max={100_000}
+        {...bind('distanceMm')}
+      />
       <NumberField
         label="Viewing angle to the surface"
         unit="°"
