@@ -161,9 +161,14 @@ async function ingestBench() {
   raw
     .prepare('INSERT INTO devices (kid, public_jwk, name, enrolled_at) VALUES (?, ?, ?, ?)')
     .run(key.kid, '{}', 'bench', T);
+  const BATCH_COLUMNS =
+    'batch_id, device_kid, device_seq, payload_sha256, jws, record_count, received_at, jws_payload, jws_payload_at, jws_payload_cuts';
   const rawBatch = raw.prepare(
-    'INSERT INTO batches (batch_id, device_kid, device_seq, payload_sha256, jws, record_count, received_at) VALUES (?, ?, ?, ?, ?, ?, ?)',
+    `INSERT INTO batches (${BATCH_COLUMNS}) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
   );
+  const storedBatch = storage.database
+    .prepare(`SELECT ${BATCH_COLUMNS} FROM batches WHERE batch_id = ?`)
+    .raw(true);
   const storedRows = storage.database
     .prepare(
       `SELECT id, kind, schema_version, seam_id, device_kid, batch_id, device_seq, body, device_created_at, received_at
@@ -195,12 +200,15 @@ async function ingestBench() {
     // The seam and its round arrive first, in a batch of their own (not timed).
     await ingestBatch(deps, (await device.seal(device.setup(seamId))).body);
     const sealed = await device.seal(device.readings(seamId, BATCH));
+    // The server gets the body as text decoded from the request's bytes: one flat string. sealBatch's string is
+    // built by concatenation, and the first scan of it would pay for flattening that no request body needs.
+    const received = Buffer.from(sealed.body, 'utf8').toString('utf8');
 
     // The ingest path as the server runs it: ingestBatch (timed by stage), then the re-grade of the seam.
     const lap: Partial<Record<IngestStage, number>> = {};
     const c3 = process.cpuUsage();
     const t3 = performance.now();
-    const reply = await ingestBatch(deps, sealed.body, (stage, ms) => (lap[stage] = ms));
+    const reply = await ingestBatch(deps, received, (stage, ms) => (lap[stage] = ms));
     const t4 = performance.now();
     const regradeLap: Partial<Record<RegradeStage, number>> = {};
     await built.deps.regrader.regrade(seamId, (stage, ms) => (regradeLap[stage] = ms));
@@ -208,15 +216,17 @@ async function ingestBench() {
     const c5 = process.cpuUsage(c3);
     if (reply.results.some((r) => r.status !== 'accepted')) throw new Error('bench batch was not accepted');
 
-    // The raw floor writes the very rows the ingest stored (read back outside any timing), with the same columns.
+    // The raw floor writes the very rows the ingest stored (read back outside any timing), with the same columns:
+    // the batch as kept for audit, then its records.
     const rows = storedRows.all(sealed.batchId) as unknown[][];
     if (rows.length !== BATCH) throw new Error(`the ingest stored ${rows.length} of ${BATCH} records`);
+    const batchRow = storedBatch.get(sealed.batchId) as unknown[];
 
-    rawBatch.run(sealed.batchId, key.kid, b + 1, 'x', sealed.body, BATCH, T);
     const c6 = process.cpuUsage();
     const t6 = performance.now();
     raw
       .transaction(() => {
+        rawBatch.run(...batchRow);
         for (const row of rows) rawInsert.run(...row);
       })
       .immediate();

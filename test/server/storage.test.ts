@@ -9,6 +9,7 @@ import { openDatabase } from '../../src/server/storage/sqlite/open.js';
 import { MIGRATIONS } from '../../src/server/storage/sqlite/migrations.js';
 import { SqliteStorage } from '../../src/server/storage/sqlite/sqlite-storage.js';
 import { PayloadBytes } from '../../src/server/sync/payload-bytes.js';
+import { cutBodies, cutsText } from '../../src/server/storage/sqlite/payload-cuts.js';
 import type { BatchPlan, PlannedRecord, Storage } from '../../src/server/storage/types.js';
 
 const T = (minute: number) => new Date(Date.UTC(2026, 11, 2, 9, minute)).toISOString();
@@ -343,20 +344,29 @@ function contract(name: string, make: () => Storage) {
       await s.close();
     });
 
-    it('keeps a payload without the bodies its records hold, whole when one was refused, and gives back each body', async () => {
+    it('keeps a payload without the records the batch added, and gives back each record', async () => {
       // Read at the column level, so on a file as the server keeps it.
       const s = SqliteStorage.open(tempFile());
       await withDevice(s);
       const body = (n: number, note = 'x') =>
         `{"reading":{"id":"r${n}","note":"${note.repeat(200)}"},"seamId":"seam-1"}`;
-      const sent = (batchId: string, records: { id: string; body: string }[]) => {
-        const payload = `{"batchId":"${batchId}","records":[${records.map((r) => `{"body":${r.body},"id":"${r.id}"}`).join(',')}]}`;
+      const sent = (batchId: string, records: { id: string; body: string; seq?: number }[]) => {
+        const planned = records.map((r, i) => ({
+          ...(valid(i, r.id, r.body) as PlannedRecord & { status: 'valid' }),
+          ...(r.seq ? { seq: r.seq } : {}),
+        }));
+        // As a device writes them: canonical, members sorted.
+        const texts = planned.map(
+          (r) =>
+            `{"body":${r.body},"createdAt":"${r.createdAt}","id":"${r.id}","kind":"${r.kind}","schemaVersion":${r.schemaVersion},"seamId":"${r.seamId}","seq":${r.seq}}`,
+        );
+        const payload = `{"batchId":"${batchId}","records":[${texts.join(',')}]}`;
         const text = Buffer.from(payload, 'utf8').toString('base64url');
         const jws = `{"protected":"eyJ9","payload":"${text}","signature":"c2ln"}`;
-        const planned = records.map((r, i) => valid(i, r.id, r.body));
         return {
           jws,
           size: Buffer.byteLength(payload),
+          texts,
           plan: plan(batchId, planned, { jws, jwsPayload: PayloadBytes.decode(text) }),
         };
       };
@@ -368,7 +378,9 @@ function contract(name: string, make: () => Storage) {
           kept: number;
           cuts: string | null;
         }[];
-      // New records, then a resend of one of them among new ones (a duplicate), then one id with other content.
+      // New records; a resend of one of them among a new one (the duplicate stays in the payload); one id with
+      // other content (refused, stays) beside a new one; a payload that is not ASCII (kept whole); a record whose
+      // text is not what its row writes (a sequence number the row does not hold: stays).
       const b1 = sent(
         'b1',
         [1, 2, 3].map((n) => ({ id: `r${n}`, body: body(n) })),
@@ -381,17 +393,42 @@ function contract(name: string, make: () => Storage) {
         { id: 'r5', body: body(5) },
         { id: 'r1', body: body(9) },
       ]);
-      // A payload that is not ASCII is kept whole.
       const b4 = sent('b4', [{ id: 'r6', body: body(6, 'ø') }]);
+      const b5 = sent('b5', [{ id: 'r7', body: body(7), seq: 9 }]);
       for (const b of [b1, b2, b3, b4]) await s.applyBatch(b.plan);
-      const [k1, k2, k3, k4] = stored();
-      expect(k1?.kept).toBe(b1.size - [1, 2, 3].reduce((n, i) => n + body(i).length, 0));
-      expect(JSON.parse(k2?.cuts ?? '[]')).toHaveLength(2);
-      expect(k3).toMatchObject({ kept: b3.size, cuts: null });
+      // b5's payload says seq 9 while its plan (what the row keeps) says 1.
+      await s.applyBatch({ ...b5.plan, records: b5.plan.records.map((r) => ({ ...r, seq: 1 })) });
+      const [k1, k2, k3, k4, k5] = stored();
+      const length = (xs: string[]) => xs.reduce((n, t) => n + t.length, 0);
+      expect(k1?.kept).toBe(b1.size - length(b1.texts));
+      expect(k1?.cuts).toMatch(/^R:/);
+      expect(k2?.kept).toBe(b2.size - length(b2.texts.slice(1)));
+      expect(k3?.kept).toBe(b3.size - length(b3.texts.slice(0, 1)));
       expect(k4).toMatchObject({ kept: b4.size, cuts: null });
-      for (const b of [b1, b2, b3, b4]) expect((await s.getBatch(b.plan.batchId))?.jws).toBe(b.jws);
+      expect(k5).toMatchObject({ kept: b5.size, cuts: null });
+      for (const b of [b1, b2, b3, b4, b5]) expect((await s.getBatch(b.plan.batchId))?.jws).toBe(b.jws);
       const dumped = (await s.dumpRecordTables())['batches'] as unknown[][];
-      expect(dumped.map((row) => row[4])).toEqual([b1.jws, b2.jws, b3.jws, b4.jws]);
+      expect(dumped.map((row) => row[4])).toEqual([b1.jws, b2.jws, b3.jws, b4.jws, b5.jws]);
+      await s.close();
+    });
+
+    it('still gives back payloads stored with their bodies cut out (the earlier layout)', async () => {
+      const s = SqliteStorage.open(tempFile());
+      await withDevice(s);
+      const bodyText = `{"reading":{"id":"r1","note":"${'y'.repeat(300)}"},"seamId":"seam-1"}`;
+      const payload = `{"batchId":"old","records":[{"body":${bodyText},"id":"r1"}]}`;
+      const text = Buffer.from(payload, 'utf8').toString('base64url');
+      const jws = `{"protected":"eyJ9","payload":"${text}","signature":"c2ln"}`;
+      await s.applyBatch(plan('old', [valid(0, 'r1', bodyText)], { jws }));
+      const cut = cutBodies(payload, [{ id: 'r1', body: bodyText }]);
+      if (!cut) throw new Error('the body should be found in the payload');
+      // As a server of the earlier layout wrote the row.
+      s.database
+        .prepare(
+          `UPDATE batches SET jws = ?, jws_payload = ?, jws_payload_at = ?, jws_payload_cuts = ? WHERE batch_id = 'old'`,
+        )
+        .run(jws.replace(text, ''), Buffer.from(cut.rest, 'latin1'), jws.indexOf(text), cutsText(cut.cuts));
+      expect((await s.getBatch('old'))?.jws).toBe(jws);
       await s.close();
     });
 

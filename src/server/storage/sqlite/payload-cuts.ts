@@ -1,7 +1,8 @@
-// A batch payload kept without the record bodies the records table holds already. A 500-reading payload is mostly
-// those bodies, so keeping them once takes nearly half the bytes off every batch's write. Each body is cut only
-// where the payload's bytes are exactly that body's stored text, and records are never changed or removed, so
-// putting the stored texts back gives the received bytes again.
+// The earlier way a batch payload was kept: without the record bodies the records table holds, the rest of each
+// record left in place. Batches are now kept without their whole records (record-cuts.ts); rows stored this way are
+// still read back, and cutBodies stays to make such rows in tests. Each body is cut only where the payload's bytes
+// are exactly that body's stored text, and records are never changed or removed, so putting the stored texts back
+// gives the received bytes again.
 
 /** Where a body was cut: its offset in the kept bytes, and the id of the record whose stored body it is. */
 export type Cut = readonly [at: number, recordId: string];

@@ -37,7 +37,15 @@ import type {
 } from '../types.js';
 import { toChange, type ChangeDbRow } from './change-rows.js';
 import { joinJws, splitJws } from './jws-columns.js';
-import { cutBodies, cutsText, parseCuts, restoreBodies } from './payload-cuts.js';
+import { parseCuts, restoreBodies } from './payload-cuts.js';
+import {
+  cutRecords,
+  isRecordCutsText,
+  parseRecordCuts,
+  recordCutsText,
+  restoreRecords,
+  type RecordColumns,
+} from './record-cuts.js';
 import { openDatabase, type Db, type OpenOptions } from './open.js';
 import { ReviewStatements } from './review-store.js';
 
@@ -211,7 +219,11 @@ export class SqliteStorage implements Storage {
            jws_payload, jws_payload_at, jws_payload_cuts)
          VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
       ),
-      uncutBatch: p('UPDATE batches SET jws_payload = ?, jws_payload_cuts = NULL WHERE batch_id = ?'),
+      setBatchPayload: p('UPDATE batches SET jws_payload = ?, jws_payload_cuts = ? WHERE batch_id = ?'),
+      recordColumnsIn: p(
+        `SELECT receive_seq, id, kind, schema_version, seam_id, device_seq, body, device_created_at FROM records
+         WHERE receive_seq BETWEEN ? AND ?`,
+      ).raw(true),
       bodyById: p('SELECT body FROM records WHERE id = ?').pluck(),
       insertRecord: p(
         `INSERT INTO records (id, kind, schema_version, seam_id, device_kid, batch_id, device_seq, body,
@@ -528,19 +540,14 @@ export class SqliteStorage implements Storage {
       };
     }
     const replay = known !== undefined;
-    let cut: { readonly payload: Buffer } | null = null;
+    // The payload is kept without the records this batch adds (record-cuts.ts): those are known only once inserted,
+    // so the batch row goes in first without its payload bytes and gets them after the records.
+    let cutFrom: { readonly ascii: string; readonly payload: Buffer } | null = null;
     if (!replay) {
       const jws = splitJws(plan.jws, plan.jwsPayload);
       // Cut by character, which is by byte only for an ASCII payload (the usual one); others are kept whole.
       const ascii = jws.payload ? (plan.jwsPayload?.ascii() ?? null) : null;
-      const bodies =
-        ascii === null
-          ? null
-          : cutBodies(
-              ascii,
-              plan.records.filter((r) => r.status === 'valid'),
-            );
-      if (bodies && jws.payload) cut = { payload: jws.payload };
+      if (ascii !== null && jws.payload) cutFrom = { ascii, payload: jws.payload };
       s.insertBatch.run(
         plan.batchId,
         plan.deviceKid,
@@ -549,11 +556,12 @@ export class SqliteStorage implements Storage {
         jws.jws,
         plan.records.length,
         plan.receivedAt,
-        bodies ? Buffer.from(bodies.rest, 'latin1') : jws.payload,
+        cutFrom ? null : jws.payload,
         jws.payloadAt,
-        bodies ? cutsText(bodies.cuts) : null,
+        null,
       );
     }
+    const added: { receiveSeq: number; columns: RecordColumns }[] = [];
     const results: RecordResult[] = [];
     const seamsChanged = new Set<string>();
     const seamsSeen = new Set<string>();
@@ -590,6 +598,7 @@ export class SqliteStorage implements Storage {
             plan.receivedAt,
           );
           if (info.changes === 1) {
+            if (cutFrom) added.push({ receiveSeq: Number(info.lastInsertRowid), columns: r });
             seamsChanged.add(r.seamId);
             result = { index: r.index, id: r.id, status: 'accepted' };
           } else {
@@ -637,9 +646,14 @@ export class SqliteStorage implements Storage {
       }
       results.push(result);
     }
-    // A body was cut on the guess that the records table would hold it; a record refused for an id held with other
-    // content does not, so the payload is then kept whole (rare: the guess holds for accepted and duplicate ones).
-    if (cut && conflicts.length) s.uncutBatch.run(cut.payload, plan.batchId);
+    if (cutFrom) {
+      const cut = cutRecords(cutFrom.ascii, added);
+      s.setBatchPayload.run(
+        cut ? Buffer.from(cut.rest, 'latin1') : cutFrom.payload,
+        cut ? recordCutsText(cut.cuts) : null,
+        plan.batchId,
+      );
+    }
     for (const seamId of seamsSeen) s.linkDeviceSeam.run(plan.deviceKid, seamId);
     for (const g of plan.deviceGrades)
       s.upsertDeviceGrade.run(g.seamId, plan.deviceKid, plan.deviceSeq, g.grade);
@@ -678,7 +692,28 @@ export class SqliteStorage implements Storage {
   /** A batch's payload bytes as received, with any record bodies that were cut out put back. */
   #payloadOf(kept: Buffer | null, cuts: string | null): Buffer | null {
     if (kept === null || cuts === null) return kept;
-    return restoreBodies(kept, parseCuts(cuts), (id) => this.#s.bodyById.get(id) as string | undefined);
+    if (!isRecordCutsText(cuts)) {
+      return restoreBodies(kept, parseCuts(cuts), (id) => this.#s.bodyById.get(id) as string | undefined);
+    }
+    const list = parseRecordCuts(cuts);
+    const seqs = list.map(([, seq]) => seq);
+    const rows = new Map<number, RecordColumns>();
+    if (seqs.length) {
+      const found = this.#s.recordColumnsIn.all(Math.min(...seqs), Math.max(...seqs)) as [
+        number,
+        string,
+        string,
+        number,
+        string,
+        number,
+        string,
+        string,
+      ][];
+      for (const [receiveSeq, id, kind, schemaVersion, seamId, seq, body, createdAt] of found) {
+        rows.set(receiveSeq, { id, kind, schemaVersion, seamId, seq, body, createdAt });
+      }
+    }
+    return restoreRecords(kept, list, (seq) => rows.get(seq));
   }
 
   async recordSecurityEvent(

@@ -1,0 +1,134 @@
+// A batch payload kept without the records the batch added to the records table. A record in a device's canonical
+// payload is written from exactly the columns the records table keeps (its members sorted: body, createdAt, id,
+// kind, schemaVersion, seamId, seq), so its whole text can be cut and written back from its row: what stays of a
+// 500-reading payload is little more than the commas between records. A record is cut only where the payload's
+// bytes are exactly the text its row writes, and records are never changed or removed, so putting the rows' texts
+// back gives the received bytes again. (Batches stored before this kept whole records and cut bodies only; see
+// payload-cuts.ts, which still reads them.)
+
+/** The columns of a stored record that its text in a payload is written from. */
+export interface RecordColumns {
+  readonly id: string;
+  readonly kind: string;
+  readonly schemaVersion: number;
+  readonly seamId: string;
+  readonly seq: number;
+  readonly body: string;
+  readonly createdAt: string;
+}
+
+/** Where a record was cut: its offset in the kept bytes, and its row (receive_seq). */
+export type RecordCut = readonly [at: number, receiveSeq: number];
+
+export interface CutRecordsPayload {
+  /** What is kept: the payload less the records' texts, one character per byte as the payload was. */
+  readonly rest: string;
+  readonly cuts: readonly RecordCut[];
+}
+
+/** The text of a record in a canonical payload (canonicalJson of recordFromOutbox), written from its columns. */
+export function recordText(r: RecordColumns): string {
+  return (
+    `{"body":${r.body},"createdAt":${JSON.stringify(r.createdAt)},"id":${JSON.stringify(r.id)},` +
+    `"kind":${JSON.stringify(r.kind)},"schemaVersion":${r.schemaVersion},"seamId":${JSON.stringify(r.seamId)},` +
+    `"seq":${r.seq}}`
+  );
+}
+
+const RECORD_START = '{"body":';
+/** How many record starts a record is looked for at before it stays in the payload. */
+const TRIES = 4;
+
+/**
+ * Cuts the given records (in payload order, each with its row) out of a payload given as its ASCII text (so a
+ * character's index is its byte's offset), looking for each from where the last one ended: the search never goes
+ * back and costs one pass at most. Records not found where expected simply stay. Null when nothing was cut.
+ */
+export function cutRecords(
+  ascii: string,
+  records: readonly { readonly receiveSeq: number; readonly columns: RecordColumns }[],
+): CutRecordsPayload | null {
+  const pieces: string[] = [];
+  const cuts: RecordCut[] = [];
+  let kept = 0;
+  let from = 0;
+  let cursor = 0;
+  for (const { receiveSeq, columns } of records) {
+    const text = recordText(columns);
+    for (let tries = 0; tries < TRIES && cursor < ascii.length; tries++) {
+      const at = ascii.indexOf(RECORD_START, cursor);
+      if (at < 0) {
+        cursor = ascii.length;
+        break;
+      }
+      cursor = at + 1;
+      if (ascii.startsWith(text, at)) {
+        pieces.push(ascii.slice(from, at));
+        kept += at - from;
+        cuts.push([kept, receiveSeq]);
+        from = cursor = at + text.length;
+        break;
+      }
+    }
+    if (cursor >= ascii.length) break;
+  }
+  if (!cuts.length) return null;
+  pieces.push(ascii.slice(from));
+  return { rest: pieces.join(''), cuts };
+}
+
+/** The payload as received: the kept bytes with each cut record's text, written from its row, put back. */
+export function restoreRecords(
+  rest: Uint8Array,
+  cuts: readonly RecordCut[],
+  rowOf: (receiveSeq: number) => RecordColumns | undefined,
+): Buffer {
+  const kept = Buffer.from(rest.buffer, rest.byteOffset, rest.byteLength);
+  const parts: Buffer[] = [];
+  let from = 0;
+  for (const [at, receiveSeq] of cuts) {
+    const row = rowOf(receiveSeq);
+    // Records are never removed: a missing one means the database was changed by hand.
+    if (row === undefined)
+      throw new Error(`batch payload names record row ${receiveSeq}, which is not stored`);
+    parts.push(kept.subarray(from, at), Buffer.from(recordText(row), 'utf8'));
+    from = at;
+  }
+  parts.push(kept.subarray(from));
+  return Buffer.concat(parts);
+}
+
+/** Marks the column text of record cuts apart from body cuts (a JSON list, so it starts with "["). */
+const PREFIX = 'R:';
+
+/** The cuts as kept in their column: offsets and rows as differences from the cut before, in base 36. */
+export function recordCutsText(cuts: readonly RecordCut[]): string {
+  let at = 0;
+  let seq = 0;
+  const parts: string[] = [];
+  for (const [a, s] of cuts) {
+    parts.push(`${(a - at).toString(36)}.${(s - seq).toString(36)}`);
+    at = a;
+    seq = s;
+  }
+  return PREFIX + parts.join(',');
+}
+
+export const isRecordCutsText = (text: string): boolean => text.startsWith(PREFIX);
+
+const DELTA = /^(-?[0-9a-z]+)\.(-?[0-9a-z]+)$/;
+
+export function parseRecordCuts(text: string): RecordCut[] {
+  if (!isRecordCutsText(text)) throw new Error('a batch payload record cut list must start with "R:"');
+  const cuts: RecordCut[] = [];
+  let at = 0;
+  let seq = 0;
+  for (const part of text.slice(PREFIX.length).split(',')) {
+    const m = DELTA.exec(part);
+    if (!m) throw new Error(`a batch payload record cut "${part}" is not in the form offset.row (base 36)`);
+    at += parseInt(m[1] as string, 36);
+    seq += parseInt(m[2] as string, 36);
+    cuts.push([at, seq]);
+  }
+  return cuts;
+}
