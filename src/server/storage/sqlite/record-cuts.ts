@@ -6,6 +6,8 @@
 // back gives the received bytes again. (Batches stored before this kept whole records and cut bodies only; see
 // payload-cuts.ts, which still reads them.)
 
+const RECORD_START = '{"body":';
+
 /** The columns of a stored record that its text in a payload is written from. */
 export interface RecordColumns {
   readonly id: string;
@@ -28,14 +30,22 @@ export interface CutRecordsPayload {
 
 /** The text of a record in a canonical payload (canonicalJson of recordFromOutbox), written from its columns. */
 export function recordText(r: RecordColumns): string {
+  return RECORD_START + r.body + recordTail(r);
+}
+
+/** What follows the body in a record's text. */
+const recordTail = (r: RecordColumns): string =>
+  `,"createdAt":${JSON.stringify(r.createdAt)},"id":${JSON.stringify(r.id)},"kind":${JSON.stringify(r.kind)},` +
+  `"schemaVersion":${r.schemaVersion},"seamId":${JSON.stringify(r.seamId)},"seq":${r.seq}}`;
+
+/** Whether the record's text stands at `at` (compared in its parts: the body is most of it and need not be copied). */
+function standsAt(ascii: string, at: number, r: RecordColumns, tail: string): boolean {
   return (
-    `{"body":${r.body},"createdAt":${JSON.stringify(r.createdAt)},"id":${JSON.stringify(r.id)},` +
-    `"kind":${JSON.stringify(r.kind)},"schemaVersion":${r.schemaVersion},"seamId":${JSON.stringify(r.seamId)},` +
-    `"seq":${r.seq}}`
+    ascii.startsWith(r.body, at + RECORD_START.length) &&
+    ascii.startsWith(tail, at + RECORD_START.length + r.body.length)
   );
 }
 
-const RECORD_START = '{"body":';
 /** How many record starts a record is looked for at before it stays in the payload. */
 const TRIES = 4;
 
@@ -54,7 +64,7 @@ export function cutRecords(
   let from = 0;
   let cursor = 0;
   for (const { receiveSeq, columns } of records) {
-    const text = recordText(columns);
+    const tail = recordTail(columns);
     for (let tries = 0; tries < TRIES && cursor < ascii.length; tries++) {
       const at = ascii.indexOf(RECORD_START, cursor);
       if (at < 0) {
@@ -62,11 +72,11 @@ export function cutRecords(
         break;
       }
       cursor = at + 1;
-      if (ascii.startsWith(text, at)) {
+      if (standsAt(ascii, at, columns, tail)) {
         pieces.push(ascii.slice(from, at));
         kept += at - from;
         cuts.push([kept, receiveSeq]);
-        from = cursor = at + text.length;
+        from = cursor = at + RECORD_START.length + columns.body.length + tail.length;
         break;
       }
     }
