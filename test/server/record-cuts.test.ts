@@ -63,6 +63,16 @@ function roundTrip(ascii: string, rows: readonly { receiveSeq: number; columns: 
   return { cut, back: restoreRecords(Buffer.from(cut.rest, 'latin1'), cuts, (seq) => bySeq.get(seq)) };
 }
 
+const ONE: RecordColumns = {
+  id: 'r1',
+  kind: 'reading',
+  schemaVersion: 1,
+  seamId: 's',
+  seq: 1,
+  body: '{"n":1}',
+  createdAt: 't',
+};
+
 describe('cutting the records a batch added out of its payload', () => {
   it('writes a record as a canonical payload holds it (canonicalJson of the record an outbox entry travels as)', () => {
     fc.assert(
@@ -126,30 +136,12 @@ describe('cutting the records a batch added out of its payload', () => {
   });
 
   it('cuts nothing from a payload whose records are not written canonically', () => {
-    const columns: RecordColumns = {
-      id: 'r1',
-      kind: 'reading',
-      schemaVersion: 1,
-      seamId: 's',
-      seq: 1,
-      body: '{"n":1}',
-      createdAt: 't',
-    };
     const spaced = `{"records":[{"body": {"n":1},"createdAt":"t","id":"r1","kind":"reading","schemaVersion":1,"seamId":"s","seq":1}]}`;
-    expect(cutRecords(spaced, [{ receiveSeq: 1, columns }])).toBe(null);
+    expect(cutRecords(spaced, [{ receiveSeq: 1, columns: ONE }])).toBe(null);
   });
 
   it('refuses to restore when a row it names is not stored', () => {
-    const columns: RecordColumns = {
-      id: 'r1',
-      kind: 'reading',
-      schemaVersion: 1,
-      seamId: 's',
-      seq: 1,
-      body: '{"n":1}',
-      createdAt: 't',
-    };
-    const cut = cutRecords(`[${recordText(columns)}]`, [{ receiveSeq: 42, columns }]);
+    const cut = cutRecords(`[${recordText(ONE)}]`, [{ receiveSeq: 42, columns: ONE }]);
     expect(cut?.rest).toBe('[]');
     if (cut) {
       expect(() => restoreRecords(Buffer.from(cut.rest, 'latin1'), cut.cuts, () => undefined)).toThrow(

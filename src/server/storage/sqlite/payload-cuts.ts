@@ -62,14 +62,26 @@ export function restoreBodies(
   cuts: readonly Cut[],
   bodyOf: (recordId: string) => string | undefined,
 ): Buffer {
+  return putBack(rest, cuts, bodyOf, (id) => `record "${id}"`);
+}
+
+/**
+ * The kept bytes with the text of each cut's key put back at its offset. Records are never removed, so a key
+ * without a text means the database was changed by hand: an error that names it.
+ */
+export function putBack<K>(
+  rest: Uint8Array,
+  cuts: readonly (readonly [at: number, key: K])[],
+  textOf: (key: K) => string | undefined,
+  name: (key: K) => string,
+): Buffer {
   const kept = Buffer.from(rest.buffer, rest.byteOffset, rest.byteLength);
   const parts: Buffer[] = [];
   let from = 0;
-  for (const [at, id] of cuts) {
-    const body = bodyOf(id);
-    // Records are never removed: a missing one means the database was changed by hand.
-    if (body === undefined) throw new Error(`batch payload names record "${id}", which is not stored`);
-    parts.push(kept.subarray(from, at), Buffer.from(body, 'utf8'));
+  for (const [at, key] of cuts) {
+    const text = textOf(key);
+    if (text === undefined) throw new Error(`batch payload names ${name(key)}, which is not stored`);
+    parts.push(kept.subarray(from, at), Buffer.from(text, 'utf8'));
     from = at;
   }
   parts.push(kept.subarray(from));

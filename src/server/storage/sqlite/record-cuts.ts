@@ -6,18 +6,16 @@
 // back gives the received bytes again. (Batches stored before this kept whole records and cut bodies only; see
 // payload-cuts.ts, which still reads them.)
 
+import type { PlannedRecord } from '../types.js';
+import { putBack } from './payload-cuts.js';
+
 const RECORD_START = '{"body":';
 
 /** The columns of a stored record that its text in a payload is written from. */
-export interface RecordColumns {
-  readonly id: string;
-  readonly kind: string;
-  readonly schemaVersion: number;
-  readonly seamId: string;
-  readonly seq: number;
-  readonly body: string;
-  readonly createdAt: string;
-}
+export type RecordColumns = Pick<
+  Extract<PlannedRecord, { status: 'valid' }>,
+  'id' | 'kind' | 'schemaVersion' | 'seamId' | 'seq' | 'body' | 'createdAt'
+>;
 
 /** Where a record was cut: its offset in the kept bytes, and its row (receive_seq). */
 export type RecordCut = readonly [at: number, receiveSeq: number];
@@ -93,19 +91,15 @@ export function restoreRecords(
   cuts: readonly RecordCut[],
   rowOf: (receiveSeq: number) => RecordColumns | undefined,
 ): Buffer {
-  const kept = Buffer.from(rest.buffer, rest.byteOffset, rest.byteLength);
-  const parts: Buffer[] = [];
-  let from = 0;
-  for (const [at, receiveSeq] of cuts) {
-    const row = rowOf(receiveSeq);
-    // Records are never removed: a missing one means the database was changed by hand.
-    if (row === undefined)
-      throw new Error(`batch payload names record row ${receiveSeq}, which is not stored`);
-    parts.push(kept.subarray(from, at), Buffer.from(recordText(row), 'utf8'));
-    from = at;
-  }
-  parts.push(kept.subarray(from));
-  return Buffer.concat(parts);
+  return putBack(
+    rest,
+    cuts,
+    (seq) => {
+      const row = rowOf(seq);
+      return row && recordText(row);
+    },
+    (seq) => `record row ${seq}`,
+  );
 }
 
 /** Marks the column text of record cuts apart from body cuts (a JSON list, so it starts with "["). */
