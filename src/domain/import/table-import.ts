@@ -237,7 +237,7 @@ export class TableImport {
     }
     this.mapping = mapping;
     this.compiled = compiled.compiled;
-    this.tokenizer = new RowTokenizer(layout.delimiter, newline);
+    this.tokenizer = new RowTokenizer(layout.delimiter, newline, layout.decimal);
     this.reader = new RowReader(compiled.compiled, mapping, this.options.context);
     this.text(text, final);
   }
