@@ -348,7 +348,15 @@ export function gradeSeam(
   const supersededByRound = new Map<number, string[]>();
   // A stable order makes the result independent of the order readings arrive in.
   const ordered = [...file.readings].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  for (let i = 0; i < ordered.length; i++) {
+  // The common case, one round with nothing withdrawn or replaced, keeps the sorted list as it is.
+  const first = ordered[0];
+  let oneRound = first !== undefined && superseded.size === 0;
+  for (let i = 0; oneRound && i < ordered.length; i++) {
+    const r = ordered[i] as Reading;
+    oneRound = r.round === first?.round && !r.withdrawn;
+  }
+  if (oneRound && first) byRound.set(first.round, ordered);
+  for (let i = 0; !oneRound && i < ordered.length; i++) {
     const r = ordered[i] as Reading;
     if (r.withdrawn) continue;
     if (superseded.size > 0 && superseded.has(r.id)) {

@@ -23,8 +23,26 @@ export class UnclosedQuote extends Error {
 }
 
 export function detectNewline(text: string): Newline {
-  const n = text.indexOf('\n');
-  const r = text.indexOf('\r');
+  return detectNewlineIn([text]);
+}
+
+/** detectNewline of the texts joined, without joining them. */
+export function detectNewlineIn(texts: readonly string[]): Newline {
+  let n = -1;
+  let r = -1;
+  let base = 0;
+  for (const text of texts) {
+    if (n === -1) {
+      const k = text.indexOf('\n');
+      if (k !== -1) n = base + k;
+    }
+    if (r === -1) {
+      const k = text.indexOf('\r');
+      if (k !== -1) r = base + k;
+    }
+    if (n !== -1 && r !== -1) break;
+    base += text.length;
+  }
   if (r !== -1 && (n === -1 || r < n - 1)) return '\r';
   if (r !== -1 && n === r + 1) return '\r\n';
   return '\n';

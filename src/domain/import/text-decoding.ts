@@ -7,10 +7,7 @@ export type TextEncodingName = 'utf-8' | 'utf-16le' | 'utf-16be' | 'windows-1252
 interface Decoder {
   decode(bytes?: Uint8Array, options?: { readonly stream: boolean }): string;
 }
-type DecoderClass = new (
-  label: TextEncodingName,
-  options: { readonly fatal: boolean; readonly ignoreBOM?: boolean },
-) => Decoder;
+type DecoderClass = new (label: TextEncodingName, options: { readonly fatal: boolean }) => Decoder;
 const TextDecoderClass = (globalThis as unknown as { readonly TextDecoder: DecoderClass }).TextDecoder;
 
 /** Which encoding the file's first bytes show. */
@@ -40,15 +37,25 @@ export function detectEncoding(head: Uint8Array): { encoding: TextEncodingName; 
  * offending character's index in the decoded sample, or -1.
  */
 export function binaryAt(text: string): number {
+  return binaryAtAll([text]);
+}
+
+/** binaryAt of the texts joined, without joining them; the index is into the joined text. */
+export function binaryAtAll(texts: readonly string[]): number {
   let controls = 0;
-  for (let i = 0; i < text.length; i++) {
-    const c = text.charCodeAt(i);
-    if (c === 0) return i;
-    if ((c < 32 && c !== 9 && c !== 10 && c !== 13 && c !== 12) || c === 0xfffd) {
-      controls++;
-      // A stray control character may be noise in a text file; many of them are not.
-      if (controls > 8 && controls * 50 > i) return i;
+  let base = 0;
+  for (const text of texts) {
+    for (let k = 0; k < text.length; k++) {
+      const c = text.charCodeAt(k);
+      const i = base + k;
+      if (c === 0) return i;
+      if ((c < 32 && c !== 9 && c !== 10 && c !== 13 && c !== 12) || c === 0xfffd) {
+        controls++;
+        // A stray control character may be noise in a text file; many of them are not.
+        if (controls > 8 && controls * 50 > i) return i;
+      }
     }
+    base += text.length;
   }
   return -1;
 }
@@ -56,82 +63,27 @@ export function binaryAt(text: string): number {
 /** A streaming decoder that picks its encoding from the first bytes it sees. */
 export class ByteDecoder {
   private decoder: Decoder | null = null;
-  /**
-   * UTF-8 is first decoded with a strict decoder: on well-formed text it gives the same characters as the lenient
-   * one and runs several times faster. At the first malformed chunk the lenient decoder takes over from the bytes
-   * the strict one still held, so a bad byte still becomes U+FFFD exactly as before.
-   */
-  private strict = false;
-  private held: Uint8Array = new Uint8Array(0);
-  /** Bytes the strict decoder has turned into text (or a dropped mark), the held ones not counted. */
-  private consumed = 0;
   encoding: TextEncodingName = 'utf-8';
   bom = false;
 
-  /** Decodes the next chunk; the first chunk decides the encoding, so it should hold a few kilobytes. */
-  push(bytes: Uint8Array): string {
+  /**
+   * Decodes the next chunk; the first chunk decides the encoding, so it should hold a few kilobytes. `head`, when
+   * given with the first chunk, is what decides instead: the file's first bytes, of which the chunk is the start.
+   */
+  push(bytes: Uint8Array, head: Uint8Array = bytes): string {
     if (!this.decoder) {
-      const found = detectEncoding(bytes);
+      const found = detectEncoding(head);
       this.bom = found.bom;
       this.encoding = found.encoding;
-      if (found.encoding === 'utf-8' && !isUtf8(bytes)) this.encoding = 'windows-1252';
-      this.strict = this.encoding === 'utf-8';
+      if (found.encoding === 'utf-8' && !isUtf8(head)) this.encoding = 'windows-1252';
       // The mark itself is dropped by the decoder (ignoreBOM is false by default).
-      this.decoder = new TextDecoderClass(this.encoding, { fatal: this.strict });
+      this.decoder = new TextDecoderClass(this.encoding, { fatal: false });
     }
-    if (!this.strict) return this.decoder.decode(bytes, { stream: true });
-    try {
-      const text = this.decoder.decode(bytes, { stream: true });
-      const before = this.held.length;
-      this.hold(bytes);
-      this.consumed += before + bytes.length - this.held.length;
-      return text;
-    } catch {
-      return this.lenient().decode(this.withHeld(bytes), { stream: true });
-    }
+    return this.decoder.decode(bytes, { stream: true });
   }
 
   end(): string {
-    if (!this.decoder) return '';
-    if (!this.strict) return this.decoder.decode();
-    try {
-      return this.decoder.decode();
-    } catch {
-      return this.lenient().decode(this.withHeld(new Uint8Array(0)));
-    }
-  }
-
-  /** Switches to the lenient decoder for the rest of the file. */
-  private lenient(): Decoder {
-    this.strict = false;
-    // Past the file's first bytes a mark is a character of the text, not one to drop.
-    this.decoder = new TextDecoderClass('utf-8', { fatal: false, ignoreBOM: this.consumed > 0 });
-    return this.decoder;
-  }
-
-  /** Keeps the unfinished sequence at the end of well-formed text: the strict decoder holds the same bytes. */
-  private hold(bytes: Uint8Array): void {
-    // Only the last three bytes can start an unfinished sequence.
-    const tail = bytes.length >= 3 ? bytes.subarray(bytes.length - 3) : this.withHeld(bytes).slice(-3);
-    let start = tail.length;
-    for (let k = 1; k <= tail.length; k++) {
-      const c = tail[tail.length - k] as number;
-      if (c < 0x80) break;
-      if (c >= 0xc0) {
-        const len = c >= 0xf0 ? 4 : c >= 0xe0 ? 3 : 2;
-        if (len > k) start = tail.length - k;
-        break;
-      }
-    }
-    this.held = tail.slice(start);
-  }
-
-  private withHeld(bytes: Uint8Array): Uint8Array {
-    if (this.held.length === 0) return bytes;
-    const all = new Uint8Array(this.held.length + bytes.length);
-    all.set(this.held);
-    all.set(bytes, this.held.length);
-    return all;
+    return this.decoder ? this.decoder.decode() : '';
   }
 }
 
