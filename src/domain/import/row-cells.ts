@@ -38,28 +38,10 @@ export class SpanRow implements RowCells {
   private numbers = new Float64Array(64);
   private numbersFor: '.' | ',' | null = null;
 
-  /** Splits source[from, to) at `delimiter`, as String.split would. */
-  split(source: string, from: number, to: number, delimiter: string): void {
-    this.source = source;
-    this.numbersFor = null;
-    let n = 0;
-    let at = from;
-    for (;;) {
-      if (n === this.starts.length) this.grow();
-      let d = source.indexOf(delimiter, at);
-      if (d === -1 || d > to) d = to;
-      this.starts[n] = at;
-      this.ends[n] = d;
-      n++;
-      if (d === to) break;
-      at = d + 1;
-    }
-    this.count = n;
-  }
-
   /**
    * Reads one row from `from` in a single pass over its characters: the cells split at the one-character
-   * `delimiter` as split does, and each cell's plainNumber with `decimal` on the way, so the row is not read twice.
+   * `delimiter` as String.split would, and each cell's plainNumber with `decimal` on the way, so the row is not
+   * read twice.
    * Returns where the row's newline starts, or -1 when the text ends first (the cells then run to its end).
    */
   scan(source: string, from: number, delimiter: number, newline: Newline, decimal: '.' | ','): number {
