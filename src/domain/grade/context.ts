@@ -51,9 +51,33 @@ export interface RowInfo {
   readonly governingIndex: number;
   readonly usesWidth: boolean;
   readonly memo: Map<number, Map<number, Map<number, Map<number, LimitSet>>>>;
-  /** The limit set last asked for: consecutive readings of an import mostly share it (keys as in memo). */
-  readonly recent: { t: number; a: number; b: number; set: LimitSet | null };
+  /** The limit sets last asked for (keys as in memo): an import's readings mostly share a few of them. */
+  readonly recent: RecentSets;
 }
+
+const RECENT = 16;
+
+/** A small round-robin cache in front of the memo: a width-dependent limit takes a set per width in use. */
+export interface RecentSets {
+  readonly t: Float64Array;
+  readonly a: Float64Array;
+  readonly b: Float64Array;
+  readonly sets: (LimitSet | null)[];
+  size: number;
+  /** The slot last hit, tried first; the slot to fill next once all are used. */
+  last: number;
+  next: number;
+}
+
+const recentSets = (): RecentSets => ({
+  t: new Float64Array(RECENT),
+  a: new Float64Array(RECENT),
+  b: new Float64Array(RECENT),
+  sets: new Array<LimitSet | null>(RECENT).fill(null),
+  size: 0,
+  last: 0,
+  next: 0,
+});
 
 /** What every reading of one seam shares, computed once per seam. */
 export interface SeamContext {
@@ -97,7 +121,7 @@ export function seamContext(
       governingIndex: LEVELS.indexOf(req),
       usesWidth: usesWidth(row),
       memo: new Map(),
-      recent: { t: NaN, a: NaN, b: NaN, set: null },
+      recent: recentSets(),
     };
     infos.push(info);
     const list = byParam.get(row.parameter) ?? [];
@@ -235,7 +259,15 @@ export function limitSetFor(
   const bKey = info.usesWidth ? (b ?? -1) : -1;
   // ctx.s is fixed per seam, so t, a and b decide the set.
   const recent = info.recent;
-  if (recent.set !== null && recent.t === t && recent.a === aKey && recent.b === bKey) return recent.set;
+  const last = recent.last;
+  if (recent.t[last] === t && recent.a[last] === aKey && recent.b[last] === bKey && recent.sets[last])
+    return recent.sets[last];
+  for (let i = 0; i < recent.size; i++) {
+    if (recent.t[i] === t && recent.a[i] === aKey && recent.b[i] === bKey) {
+      recent.last = i;
+      return recent.sets[i] as LimitSet;
+    }
+  }
   const byA = child(info.memo, t, Map<number, Map<number, Map<number, LimitSet>>>);
   const byB = child(byA, aKey, Map<number, Map<number, LimitSet>>);
   const byS = child(byB, bKey, Map<number, LimitSet>);
@@ -245,10 +277,14 @@ export function limitSetFor(
     ctx.limitSets.push(set);
     byS.set(ctx.s, set);
   }
-  recent.t = t;
-  recent.a = aKey;
-  recent.b = bKey;
-  recent.set = set;
+  // Filled in turn, then the oldest slot is replaced.
+  const slot = recent.size < RECENT ? recent.size++ : recent.next;
+  recent.next = (slot + 1) % RECENT;
+  recent.t[slot] = t;
+  recent.a[slot] = aKey;
+  recent.b[slot] = bKey;
+  recent.sets[slot] = set;
+  recent.last = slot;
   return set;
 }
 

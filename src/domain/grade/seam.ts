@@ -147,8 +147,10 @@ function accumulate(
   readings: readonly Reading[],
   cols: GradeColumns,
   ctx: SeamContext,
-): { rows: Map<number, RowAccumulator>; borderline: number } {
-  const rows = new Map<number, RowAccumulator>();
+): { rows: RowAccumulator[]; borderline: number } {
+  // By row index, and in the order rows were first met (the order the summaries are built in).
+  const byRow: (RowAccumulator | undefined)[] = new Array<RowAccumulator | undefined>(ctx.rows.length);
+  const rows: RowAccumulator[] = [];
   let borderline = 0;
   for (let e = 0; e < cols.size; e++) {
     const ri = cols.reading[e] as number;
@@ -157,7 +159,7 @@ function accumulate(
     const set = ctx.limitSets[setIndex] as LimitSet;
     const rank = cols.rank[e] as number;
     if ((cols.flags[e] as number) & FLAG_BORDERLINE) borderline++;
-    let acc = rows.get(set.rowIndex);
+    let acc = byRow[set.rowIndex];
     if (!acc) {
       acc = {
         info: ctx.rows[set.rowIndex] as RowInfo,
@@ -170,7 +172,8 @@ function accumulate(
         allVerified: true,
         shortCounted: [],
       };
-      rows.set(set.rowIndex, acc);
+      byRow[set.rowIndex] = acc;
+      rows.push(acc);
     }
     acc.count++;
     if (rank < acc.rank) acc.rank = rank;
@@ -291,7 +294,7 @@ function gradeRound(
   const { rows, borderline } = accumulate(readings, cols, ctx);
   const imperfections: ImperfectionSummary[] = [];
   let worst: { key: SpotKey; spot: WorstSpot } | null = null;
-  for (const acc of rows.values()) {
+  for (const acc of rows) {
     const summary = summarise(acc, readings, cols, ctx);
     imperfections.push(summary);
     if (summary.unverifiedLevels.length) unverified.add(summary.rowId);
@@ -345,10 +348,18 @@ export function gradeSeam(
   const supersededByRound = new Map<number, string[]>();
   // A stable order makes the result independent of the order readings arrive in.
   const ordered = [...file.readings].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  for (let i = 0; i < ordered.length; i++) {
+  // The common case, one round with nothing withdrawn or replaced, keeps the sorted list as it is.
+  const first = ordered[0];
+  let oneRound = first !== undefined && superseded.size === 0;
+  for (let i = 0; oneRound && i < ordered.length; i++) {
+    const r = ordered[i] as Reading;
+    oneRound = r.round === first?.round && !r.withdrawn;
+  }
+  if (oneRound && first) byRound.set(first.round, ordered);
+  for (let i = 0; !oneRound && i < ordered.length; i++) {
     const r = ordered[i] as Reading;
     if (r.withdrawn) continue;
-    if (superseded.has(r.id)) {
+    if (superseded.size > 0 && superseded.has(r.id)) {
       supersededByRound.set(r.round, [...(supersededByRound.get(r.round) ?? []), r.id]);
       continue;
     }

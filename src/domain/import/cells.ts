@@ -76,7 +76,7 @@ export function readCell(raw: string, decimal: '.' | ','): CellResult {
 export const looksNumeric = (s: string): boolean =>
   /^\s*[+-]?(\d+([.,]\d*)?|[.,]\d+)([eE][+-]?\d+)?\s*$/.test(s);
 
-const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
+export const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
 
 /**
  * The fast path of readCell for the common cell: an optional sign, digits and at most one decimal mark, nothing

@@ -73,6 +73,12 @@ export class RowReader {
   private readonly found: Float64Array;
   private readonly valueTemplates = new Map<number, Partial<Record<ParameterName, number>>>();
   private readonly readingTemplates: (Reading | undefined)[] = [];
+  /** Per mapped value, what each row needs of its parameter's spec, looked up once instead of per cell. */
+  private readonly specs: (typeof PARAMETERS)[ParameterName][];
+  /** Per mapped value: its slot when fixed by the mapping (0, 1, 2), or -1 when it is the row's toe. */
+  private readonly fixedSlot: Int8Array;
+  /** Per mapped value: 1 height, 2 width, 3 a leg, 0 anything else (the pairs checked per row). */
+  private readonly pairing: Uint8Array;
 
   constructor(
     private readonly compiled: CompiledMapping,
@@ -97,6 +103,25 @@ export class RowReader {
     this.round = ctx.round ?? 1;
     this.toe1 = { plate: 1, side: this.side };
     this.toe2 = { plate: 2, side: this.side };
+    const n = compiled.values.length;
+    this.specs = compiled.values.map((v) => PARAMETERS[v.parameter]);
+    this.fixedSlot = new Int8Array(n);
+    this.pairing = new Uint8Array(n);
+    const toeFromRow = Boolean(compiled.toeColumn) || Boolean(mapping.toe);
+    for (let k = 0; k < n; k++) {
+      const v = compiled.values[k] as CompiledValue;
+      const spec = this.specs[k] as (typeof PARAMETERS)[ParameterName];
+      this.fixedSlot[k] = v.plate !== 0 ? v.plate : spec.per === 'toe' || toeFromRow ? -1 : 0;
+      const p = v.parameter;
+      this.pairing[k] =
+        p === 'reinforcementHeight'
+          ? 1
+          : p === 'reinforcementWidth'
+            ? 2
+            : p === 'leg1' || p === 'leg2'
+              ? 3
+              : 0;
+    }
   }
 
   /** Appends the row's readings to `out`, or returns why the row is set aside (then `out` is untouched). */
@@ -183,19 +208,20 @@ export class RowReader {
       }
       let value = num * v.factor;
       if (v.flank) value = 180 - value;
-      const spec = PARAMETERS[v.parameter];
+      const spec = this.specs[k] as (typeof PARAMETERS)[ParameterName];
       if ((spec.minExclusive ? value <= spec.min : value < spec.min) || value > spec.max) {
         return { ok: false, code: 'range', reason: rangeProblem(v, value, num) ?? 'out of range' };
       }
-      const slot =
-        v.plate !== 0 ? v.plate : spec.per === 'toe' || c.toeColumn || this.mapping.toe ? rowPlate : 0;
+      const fixed = this.fixedSlot[k] as number;
+      const slot = fixed >= 0 ? fixed : rowPlate;
       found[k] = value;
       if (slot === 1) mask1 |= 1 << k;
       else if (slot === 2) mask2 |= 1 << k;
       else mask0 |= 1 << k;
-      if (v.parameter === 'reinforcementHeight') hasHeight = true;
-      else if (v.parameter === 'reinforcementWidth') hasWidth = true;
-      else if (v.parameter === 'leg1' || v.parameter === 'leg2') legs++;
+      const pair = this.pairing[k];
+      if (pair === 1) hasHeight = true;
+      else if (pair === 2) hasWidth = true;
+      else if (pair === 3) legs++;
       count++;
     }
     if (count === 0) return { ok: false, code: 'noValues', reason: 'holds no measured value' };

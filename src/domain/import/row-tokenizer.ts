@@ -23,8 +23,26 @@ export class UnclosedQuote extends Error {
 }
 
 export function detectNewline(text: string): Newline {
-  const n = text.indexOf('\n');
-  const r = text.indexOf('\r');
+  return detectNewlineIn([text]);
+}
+
+/** detectNewline of the texts joined, without joining them. */
+export function detectNewlineIn(texts: readonly string[]): Newline {
+  let n = -1;
+  let r = -1;
+  let base = 0;
+  for (const text of texts) {
+    if (n === -1) {
+      const k = text.indexOf('\n');
+      if (k !== -1) n = base + k;
+    }
+    if (r === -1) {
+      const k = text.indexOf('\r');
+      if (k !== -1) r = base + k;
+    }
+    if (n !== -1 && r !== -1) break;
+    base += text.length;
+  }
   if (r !== -1 && (n === -1 || r < n - 1)) return '\r';
   if (r !== -1 && n === r + 1) return '\r\n';
   return '\n';
@@ -41,7 +59,12 @@ export class RowTokenizer {
   private base = 0;
   private nextLine = 1;
 
-  constructor(delimiter: string, newline: Newline) {
+  /** The decimal mark numbers are read with as rows are split (see SpanRow.scan). */
+  constructor(
+    delimiter: string,
+    newline: Newline,
+    private readonly decimal: '.' | ',' = '.',
+  ) {
     // papaparse types its `newline` option narrowly; '\r\n' is one of the values it accepts.
     this.parser = new Papa.Parser({ delimiter, newline: newline as '\n', quoteChar: '"' });
     this.breakChar = newline === '\r' ? '\r' : '\n';
@@ -55,8 +78,9 @@ export class RowTokenizer {
    * newline, cells at the delimiter) without a string per cell; text with a quote goes through papaparse.
    */
   feedCells(text: string, final: boolean, sink: CellsSink): void {
-    const input = this.partial + text;
-    if (this.delimiter.length !== 1 || input.indexOf('"') !== -1) {
+    const partial = this.partial;
+    // The two parts are searched apart: a search in the joined string first copies it whole, a megabyte a chunk.
+    if (this.delimiter.length !== 1 || text.indexOf('"') !== -1 || partial.indexOf('"') !== -1) {
       const row = this.arrayRow;
       this.feed(text, final, (cells, line) => {
         row.cells = cells;
@@ -64,31 +88,39 @@ export class RowTokenizer {
       });
       return;
     }
-    const nl = this.newline;
-    const row = this.spanRow;
-    let at = 0;
-    // papaparse reads no rows at all from empty text, even the final chunk.
-    if (input.length > 0) {
-      for (;;) {
-        const end = input.indexOf(nl, at);
-        if (end === -1) {
-          if (final) {
-            row.split(input, at, input.length, this.delimiter);
-            sink(row, this.nextLine++);
-          }
-          break;
-        }
-        row.split(input, at, end, this.delimiter);
-        sink(row, this.nextLine++);
-        at = end + nl.length;
+    // The row left from the last chunk is finished on a short string of its own, so the chunk is read as it came.
+    let source = text;
+    let from = 0;
+    if (partial.length > 0) {
+      const k = text.indexOf(this.newline);
+      if (k === -1) source = partial + text;
+      else {
+        from = k + this.newline.length;
+        this.rowsOf(partial + text.substring(0, from), 0, false, sink);
       }
     }
-    if (final) {
-      this.partial = '';
-      return;
+    // papaparse reads no rows at all from empty text, even the final chunk.
+    const at = source.length > 0 ? this.rowsOf(source, from, final, sink) : 0;
+    const rest = final ? '' : source.substring(at);
+    this.base += partial.length + text.length - rest.length;
+    this.partial = rest;
+  }
+
+  /** Hands over the rows of input from `from`; returns where the unfinished last row starts (read too if final). */
+  private rowsOf(input: string, from: number, final: boolean, sink: CellsSink): number {
+    const nl = this.newline;
+    const row = this.spanRow;
+    const delimiter = this.delimiter.charCodeAt(0);
+    let at = from;
+    for (;;) {
+      const end = row.scan(input, at, delimiter, nl, this.decimal);
+      if (end === -1) {
+        if (final) sink(row, this.nextLine++);
+        return at;
+      }
+      sink(row, this.nextLine++);
+      at = end + nl.length;
     }
-    this.partial = input.substring(at);
-    this.base += at;
   }
 
   /** Tokenizes the next chunk; with `final`, also the last row. Throws UnclosedQuote on an unterminated quote. */

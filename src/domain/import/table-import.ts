@@ -4,11 +4,12 @@
 import { MAX_READINGS, type Reading } from '../model/seam-file.js';
 import { compileMapping, type CompiledMapping } from './compile-mapping.js';
 import { MAPPING_FORMAT, type ImportMapping } from './mapping.js';
+import type { RowCells } from './row-cells.js';
 import { RowReader, type ImportContext, type QuarantineCode, type QuarantinedRow } from './row-readings.js';
-import { detectNewline, RowTokenizer, UnclosedQuote } from './row-tokenizer.js';
+import { detectNewlineIn, RowTokenizer, UnclosedQuote } from './row-tokenizer.js';
 import { sha256, type Hasher } from './sha256.js';
 import { sniffLayout, type TableLayout } from './sniff.js';
-import { binaryAt, ByteDecoder, type TextEncodingName } from './text-decoding.js';
+import { binaryAtAll, ByteDecoder, type TextEncodingName } from './text-decoding.js';
 
 /** Files above this size are refused before they are read: a seam holds at most 200,000 readings anyway. */
 export const MAX_TABLE_BYTES = 64 * 1024 * 1024;
@@ -17,6 +18,11 @@ export const MAX_IMPORT_READINGS = MAX_READINGS;
 /** Quarantined rows kept with their reasons; beyond this only the counts per reason go on. */
 export const MAX_QUARANTINE_KEPT = 10_000;
 const SNIFF_BYTES = 64 * 1024;
+/**
+ * Chunks are decoded in pieces of at most this many bytes: the text of a whole megabyte chunk is a string placed in
+ * fresh memory of its own, which cost more than decoding it; a piece this size is made where short-lived objects go.
+ */
+const PIECE_BYTES = 64 * 1024;
 
 export interface Refusal {
   readonly message: string;
@@ -128,12 +134,12 @@ export class TableImport {
       if (this.headBytes >= SNIFF_BYTES) this.start(false);
       return;
     }
-    this.text(this.decoder.push(chunk), false);
+    this.text(this.decode(chunk), false);
   }
 
   finish(): TableOutcome {
     if (!this.refusal && !this.layout) this.start(true);
-    if (!this.refusal) this.text(this.decoder.end(), true);
+    if (!this.refusal) this.text([this.decoder.end()], true);
     const facts = this.refusal && this.bytes > this.maxBytes ? { bytes: this.bytes } : this.facts();
     if (!this.refusal && this.layout && this.dataRows === 0) {
       this.refuse({ message: 'The file has a header but no data rows.' });
@@ -195,23 +201,26 @@ export class TableImport {
       at += c.length;
     }
     this.head = [];
-    let text = this.decoder.push(all);
-    if (final) text += this.decoder.end();
-    if (text.trim() === '') {
+    const texts = this.decode(all, all);
+    if (final) texts.push(this.decoder.end());
+    if (texts.every((t) => t.trim() === '')) {
       this.refuse({ message: this.bytes === 0 ? 'The file is empty.' : 'The file holds only blank space.' });
       return;
     }
-    const bad = binaryAt(text);
+    const bad = binaryAtAll(texts);
     if (bad >= 0) {
       this.refuse({
         message: `The file is not a text table: it holds binary data (a control character near character ${bad + 1}).`,
       });
       return;
     }
-    const newline = detectNewline(text);
+    const newline = detectNewlineIn(texts);
     // The layout is read from the first 64 KiB only; the rows themselves are read once, below.
-    const sample = text.length > SNIFF_BYTES ? text.slice(0, SNIFF_BYTES) : text;
-    const sniffed = sniffLayout(sample, newline, final && sample === text, this.options.mapping);
+    let sample = '';
+    for (let i = 0; i < texts.length && sample.length < SNIFF_BYTES; i++) sample += texts[i];
+    const whole = texts.reduce((n, t) => n + t.length, 0) <= SNIFF_BYTES;
+    if (sample.length > SNIFF_BYTES) sample = sample.slice(0, SNIFF_BYTES);
+    const sniffed = sniffLayout(sample, newline, final && whole, this.options.mapping);
     if (!sniffed.ok) {
       this.refuse({ message: sniffed.message });
       return;
@@ -237,19 +246,31 @@ export class TableImport {
     }
     this.mapping = mapping;
     this.compiled = compiled.compiled;
-    this.tokenizer = new RowTokenizer(layout.delimiter, newline);
+    this.tokenizer = new RowTokenizer(layout.delimiter, newline, layout.decimal);
     this.reader = new RowReader(compiled.compiled, mapping, this.options.context);
-    this.text(text, final);
+    this.text(texts, final);
   }
 
-  private text(text: string, final: boolean): void {
+  /** The chunk's text in pieces (see PIECE_BYTES); `head`, for the first chunk, decides the encoding. */
+  private decode(bytes: Uint8Array, head?: Uint8Array): string[] {
+    const texts: string[] = [];
+    let at = 0;
+    do {
+      texts.push(this.decoder.push(bytes.subarray(at, at + PIECE_BYTES), head));
+      at += PIECE_BYTES;
+    } while (at < bytes.length);
+    return texts;
+  }
+
+  /** Reads one chunk's text, given in pieces; the binary check looks at the chunk's text as a whole. */
+  private text(texts: readonly string[], final: boolean): void {
     const tokenizer = this.tokenizer;
     const reader = this.reader;
     const layout = this.layout;
     if (!tokenizer || !reader || !layout || this.refusal) return;
     if (this.firstText) this.firstText = false;
-    else if (text.length) {
-      const bad = binaryAt(text);
+    else {
+      const bad = binaryAtAll(texts);
       if (bad >= 0) {
         this.refuse({
           message: `The file turns into binary data after ${mib(this.bytes)}: it is not a text table.`,
@@ -258,26 +279,28 @@ export class TableImport {
       }
     }
     const start = layout.dataStartLine;
-    try {
-      tokenizer.feedCells(text, final, (row, line) => {
-        if (line < start || this.refusal) return;
-        if (row.count === 1 && row.text(0).trim() === '') return;
-        this.dataRows++;
-        const out = reader.read(row, line, this.readings);
-        if (out.ok) {
-          if (this.readings.length > MAX_IMPORT_READINGS) {
-            this.refuse({
-              message: `The file makes more than ${MAX_IMPORT_READINGS.toLocaleString('en')} readings (the most one seam holds) by line ${line}. Split the export by seam or by stretch.`,
-              line,
-            });
-          }
-        } else {
-          this.quarantined++;
-          this.byCode[out.code] = (this.byCode[out.code] ?? 0) + 1;
-          if (this.quarantine.length < MAX_QUARANTINE_KEPT)
-            this.quarantine.push({ line, code: out.code, reason: out.reason });
+    const sink = (row: RowCells, line: number): void => {
+      if (line < start || this.refusal) return;
+      if (row.count === 1 && row.text(0).trim() === '') return;
+      this.dataRows++;
+      const out = reader.read(row, line, this.readings);
+      if (out.ok) {
+        if (this.readings.length > MAX_IMPORT_READINGS) {
+          this.refuse({
+            message: `The file makes more than ${MAX_IMPORT_READINGS.toLocaleString('en')} readings (the most one seam holds) by line ${line}. Split the export by seam or by stretch.`,
+            line,
+          });
         }
-      });
+      } else {
+        this.quarantined++;
+        this.byCode[out.code] = (this.byCode[out.code] ?? 0) + 1;
+        if (this.quarantine.length < MAX_QUARANTINE_KEPT)
+          this.quarantine.push({ line, code: out.code, reason: out.reason });
+      }
+    };
+    try {
+      for (let i = 0; i < texts.length && !this.refusal; i++)
+        tokenizer.feedCells(texts[i] as string, final && i === texts.length - 1, sink);
     } catch (e) {
       if (e instanceof UnclosedQuote)
         this.refuse({ message: `The file cannot be read: ${e.message}.`, line: e.line });

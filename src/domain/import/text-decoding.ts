@@ -37,15 +37,25 @@ export function detectEncoding(head: Uint8Array): { encoding: TextEncodingName; 
  * offending character's index in the decoded sample, or -1.
  */
 export function binaryAt(text: string): number {
+  return binaryAtAll([text]);
+}
+
+/** binaryAt of the texts joined, without joining them; the index is into the joined text. */
+export function binaryAtAll(texts: readonly string[]): number {
   let controls = 0;
-  for (let i = 0; i < text.length; i++) {
-    const c = text.charCodeAt(i);
-    if (c === 0) return i;
-    if ((c < 32 && c !== 9 && c !== 10 && c !== 13 && c !== 12) || c === 0xfffd) {
-      controls++;
-      // A stray control character may be noise in a text file; many of them are not.
-      if (controls > 8 && controls * 50 > i) return i;
+  let base = 0;
+  for (const text of texts) {
+    for (let k = 0; k < text.length; k++) {
+      const c = text.charCodeAt(k);
+      const i = base + k;
+      if (c === 0) return i;
+      if ((c < 32 && c !== 9 && c !== 10 && c !== 13 && c !== 12) || c === 0xfffd) {
+        controls++;
+        // A stray control character may be noise in a text file; many of them are not.
+        if (controls > 8 && controls * 50 > i) return i;
+      }
     }
+    base += text.length;
   }
   return -1;
 }
@@ -56,13 +66,16 @@ export class ByteDecoder {
   encoding: TextEncodingName = 'utf-8';
   bom = false;
 
-  /** Decodes the next chunk; the first chunk decides the encoding, so it should hold a few kilobytes. */
-  push(bytes: Uint8Array): string {
+  /**
+   * Decodes the next chunk; the first chunk decides the encoding, so it should hold a few kilobytes. `head`, when
+   * given with the first chunk, is what decides instead: the file's first bytes, of which the chunk is the start.
+   */
+  push(bytes: Uint8Array, head: Uint8Array = bytes): string {
     if (!this.decoder) {
-      const found = detectEncoding(bytes);
+      const found = detectEncoding(head);
       this.bom = found.bom;
       this.encoding = found.encoding;
-      if (found.encoding === 'utf-8' && !isUtf8(bytes)) this.encoding = 'windows-1252';
+      if (found.encoding === 'utf-8' && !isUtf8(head)) this.encoding = 'windows-1252';
       // The mark itself is dropped by the decoder (ignoreBOM is false by default).
       this.decoder = new TextDecoderClass(this.encoding, { fatal: false });
     }
