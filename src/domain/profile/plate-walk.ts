@@ -5,19 +5,26 @@
 /** The accepted points' sums, x and z taken from (x0, z0): n, Σx, Σz, Σx², Σxz, Σz². Reused from walk to walk. */
 export const walkSums = new Float64Array(6);
 
+/**
+ * The line z = a + b·x, the tolerance τ and the origin (x0, z0) of the sums, set by the caller before each walk.
+ * Passed as arguments, a whole number among them (x0 = −30, z0 = 0) arrives untyped and the optimised loop
+ * checked its kind at every point; read from here they are plain doubles from the start.
+ */
+export const walkLine = new Float64Array(5);
+
 /** Returns the first index of the weld seen from this side, or −1 when the profile never leaves the line. */
 export function walkPlate(
   x: ArrayLike<number>,
   z: ArrayLike<number>,
   n: number,
   dir: 1 | -1,
-  a: number,
-  b: number,
-  tau: number,
   run: number,
-  x0: number,
-  z0: number,
 ): number {
+  const a = walkLine[0] as number;
+  const b = walkLine[1] as number;
+  const tau = walkLine[2] as number;
+  const x0 = walkLine[3] as number;
+  const z0 = walkLine[4] as number;
   let sx = 0;
   let sz = 0;
   let sxx = 0;
