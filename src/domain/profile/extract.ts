@@ -224,9 +224,13 @@ function toeOf(
 const SMOOTH_ABOVE = 0.003;
 const SMOOTH_SPAN_MM = 0.3;
 
-/** Centred moving average over `w` (odd) points; the ends keep shorter windows. */
+// The smoothed profile, reused from slice to slice: extraction is synchronous and keeps no reference to it.
+let smoothed = new Float64Array(0);
+
+/** Centred moving average over `w` (odd) points; the ends keep shorter windows. Valid until the next call. */
 function movingAverage(z: ArrayLike<number>, n: number, w: number): Float64Array {
-  const out = new Float64Array(n);
+  if (smoothed.length < n) smoothed = new Float64Array(n);
+  const out = smoothed;
   const h = (w - 1) >> 1;
   let sum = 0;
   let lo = 0;

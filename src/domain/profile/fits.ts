@@ -96,11 +96,17 @@ export function fitLineTrimmed(
   let b = 0;
   let rms = 0;
   let inliers = 0;
+  // Bound on the rounding error of the last round's residual sum of squares (see below).
+  let slack = 0;
+  let sse = 0;
   for (let pass = 0; pass < 3; pass++) {
     const tol = Math.max(3 * rms, floor);
-    // A clean plate drops no point in the first trimming round, which would refit the same set: a pass that only
-    // looks for a point beyond the tolerance (and stops at the first) ends the fit at the cost of the test alone.
-    if (pass === 1 && !beyond(x, z, from, to, stride, a, b, tol)) break;
+    // A clean plate drops no point in the first trimming round, which would refit the same set. No residual exceeds
+    // the root of the residual sum of squares, so when that root (with its rounding error) is well within the
+    // tolerance no point can be dropped; otherwise a pass that only looks for a point beyond the tolerance (and
+    // stops at the first) decides it at the cost of the test alone.
+    if (pass === 1 && (sse + slack <= tol * tol * (1 - 1e-6) || !beyond(x, z, from, to, stride, a, b, tol)))
+      break;
     let sx = 0,
       sz = 0,
       sxx = 0,
@@ -143,8 +149,24 @@ export function fitLineTrimmed(
     a = a0 - slope * x0 + z0;
     inliers = n;
     // Residual sum of squares about z − z0 = a0 + b·(x − x0), from the sums.
-    const sse = szz - 2 * a0 * sz - 2 * slope * sxz + n * a0 * a0 + 2 * a0 * slope * sx + slope * slope * sxx;
-    rms = Math.sqrt((sse > 0 ? sse : 0) / n);
+    const t3 = n * a0 * a0;
+    const t5 = slope * slope * sxx;
+    const raw = szz - 2 * a0 * sz - 2 * slope * sxz + t3 + 2 * a0 * slope * sx + t5;
+    sse = raw > 0 ? raw : 0;
+    // Its rounding error: each sum carries up to about n roundings of its terms' magnitudes (Higham, "Accuracy and
+    // Stability of Numerical Algorithms", 2002, §4.2), bounded by Cauchy–Schwarz (Σ|z| ≤ √(n·Σz²), Σ|xz| ≤
+    // √(Σx²·Σz²)), taken twice over.
+    slack =
+      2 *
+      (n + 8) *
+      Number.EPSILON *
+      (szz +
+        2 * Math.abs(a0) * Math.sqrt(n * szz) +
+        2 * Math.abs(slope) * Math.sqrt(sxx * szz) +
+        t3 +
+        2 * Math.abs(a0 * slope) * Math.sqrt(n * sxx) +
+        t5);
+    rms = Math.sqrt(sse / n);
   }
   return inliers > 0 ? { line: { a, b }, rms, inliers } : null;
 }
