@@ -78,30 +78,77 @@ export function scanWeld(
   // spilled to the stack.
   const first = Math.max(from, k);
   const last = Math.min(to, n - 1 - k);
+  const end1 = Math.min(crown - 1, last);
+  const start2 = Math.max(first, crown + 1);
   let maxRise = -Infinity;
   let maxRun = 1;
   let maxAt = from;
-  const end1 = Math.min(crown - 1, last);
-  for (let i = first; i <= end1; i++) {
-    const rise = (z[i + k] as number) - (z[i - k] as number);
-    const run = (x[i + k] as number) - (x[i - k] as number);
-    if (run > 0 && rise * maxRun > maxRise * run) {
-      maxRise = rise;
-      maxRun = run;
-      maxAt = i;
-    }
-  }
   let minRise = Infinity;
   let minRun = 1;
   let minAt = to;
-  for (let i = Math.max(first, crown + 1); i <= last; i++) {
-    const rise = (z[i + k] as number) - (z[i - k] as number);
-    const run = (x[i + k] as number) - (x[i - k] as number);
-    // On a tie the later point wins: the first a walk from plate 2 would meet.
-    if (run > 0 && rise * minRun <= minRise * run) {
-      minRise = rise;
-      minRun = run;
-      minAt = i;
+  if (k === 1) {
+    // One point either side (a profile with little scatter): the neighbours slide along, two loads a point.
+    if (first <= end1) {
+      let zl = z[first - 1] as number;
+      let xl = x[first - 1] as number;
+      let zc = z[first] as number;
+      let xc = x[first] as number;
+      for (let i = first; i <= end1; i++) {
+        const zr = z[i + 1] as number;
+        const xr = x[i + 1] as number;
+        const rise = zr - zl;
+        const run = xr - xl;
+        if (run > 0 && rise * maxRun > maxRise * run) {
+          maxRise = rise;
+          maxRun = run;
+          maxAt = i;
+        }
+        zl = zc;
+        xl = xc;
+        zc = zr;
+        xc = xr;
+      }
+    }
+    if (start2 <= last) {
+      let zl = z[start2 - 1] as number;
+      let xl = x[start2 - 1] as number;
+      let zc = z[start2] as number;
+      let xc = x[start2] as number;
+      for (let i = start2; i <= last; i++) {
+        const zr = z[i + 1] as number;
+        const xr = x[i + 1] as number;
+        const rise = zr - zl;
+        const run = xr - xl;
+        // On a tie the later point wins: the first a walk from plate 2 would meet.
+        if (run > 0 && rise * minRun <= minRise * run) {
+          minRise = rise;
+          minRun = run;
+          minAt = i;
+        }
+        zl = zc;
+        xl = xc;
+        zc = zr;
+        xc = xr;
+      }
+    }
+  } else {
+    for (let i = first; i <= end1; i++) {
+      const rise = (z[i + k] as number) - (z[i - k] as number);
+      const run = (x[i + k] as number) - (x[i - k] as number);
+      if (run > 0 && rise * maxRun > maxRise * run) {
+        maxRise = rise;
+        maxRun = run;
+        maxAt = i;
+      }
+    }
+    for (let i = start2; i <= last; i++) {
+      const rise = (z[i + k] as number) - (z[i - k] as number);
+      const run = (x[i + k] as number) - (x[i - k] as number);
+      if (run > 0 && rise * minRun <= minRise * run) {
+        minRise = rise;
+        minRun = run;
+        minAt = i;
+      }
     }
   }
   return {
