@@ -1,6 +1,6 @@
-// The scans over the weld between the two plate departures, fused so the points are read once: the crown (highest
-// point above the chord between the departures) and, on each side of it, the steepest point of the face in that
-// plate's frame. The height above the toe chord then looks only at points the crown scan kept as candidates.
+// The scans over the weld between the two plate departures: the crown (highest point above the chord between the
+// departures), then, on each side of it, the steepest point of the face in that plate's frame. The height above the
+// toe chord then looks only at points the crown scan kept as candidates.
 import type { Line } from './fits.js';
 
 export interface WeldScan {
