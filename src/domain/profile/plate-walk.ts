@@ -30,22 +30,29 @@ export function walkPlate(
   let sxx = 0;
   let sxz = 0;
   let szz = 0;
-  let cnt = 0;
-  let out = 0;
   let departure = -1;
+  // Only points off the line touch the run bookkeeping (where the current run began, the last point off the line,
+  // how many were left out); the accepted point, nearly every one, does nothing but the test and the sums.
+  let left = 0;
+  let runStart = -1;
+  let visited = n;
   // Two loops, one per direction, so each index runs with a constant step.
   if (dir === 1) {
+    let lastOff = -2;
     for (let i = 0; i < n; i++) {
       const xa = x[i] as number;
       const za = z[i] as number;
       if (Math.abs(za - a - b * xa) > tau) {
-        if (++out === run) {
-          departure = i - (run - 1);
+        if (i !== lastOff + 1) runStart = i;
+        lastOff = i;
+        left++;
+        if (i - runStart + 1 === run) {
+          departure = runStart;
+          visited = i + 1;
           break;
         }
         continue;
       }
-      out = 0;
       const xi = xa - x0;
       const zi = za - z0;
       sx += xi;
@@ -53,20 +60,23 @@ export function walkPlate(
       sxx += xi * xi;
       sxz += xi * zi;
       szz += zi * zi;
-      cnt++;
     }
   } else {
+    let lastOff = n + 1;
     for (let i = n - 1; i >= 0; i--) {
       const xa = x[i] as number;
       const za = z[i] as number;
       if (Math.abs(za - a - b * xa) > tau) {
-        if (++out === run) {
-          departure = i + (run - 1);
+        if (i !== lastOff - 1) runStart = i;
+        lastOff = i;
+        left++;
+        if (runStart - i + 1 === run) {
+          departure = runStart;
+          visited = n - i;
           break;
         }
         continue;
       }
-      out = 0;
       const xi = xa - x0;
       const zi = za - z0;
       sx += xi;
@@ -74,9 +84,9 @@ export function walkPlate(
       sxx += xi * xi;
       sxz += xi * zi;
       szz += zi * zi;
-      cnt++;
     }
   }
+  const cnt = visited - left;
   walkSums[0] = cnt;
   walkSums[1] = sx;
   walkSums[2] = sz;
