@@ -16,7 +16,7 @@
 // Fit quality q = 1 − (RMS residual of all fitted points about their plate lines and toe circles) / 0.05 mm,
 // clipped to [0, 1], and 0 when a plate or toe could not be fitted. Slices with q < 0.6 are flagged.
 import { fitCirclePratt, fitLineTrimmed, lineFromSums, sseFromSums, type Circle, type Line } from './fits.js';
-import { walkPlate, walkSums } from './plate-walk.js';
+import { walkLine, walkPlate, walkSums } from './plate-walk.js';
 import { heightAboveChord, scanWeld } from './weld-scan.js';
 
 export const QUALITY_TOLERANCE_MM = 0.05;
@@ -94,7 +94,12 @@ function plateSide(
   // Sums over the accepted points, growing as the walk goes on; refitted at the end, its scatter in closed form.
   const x0 = x[from] as number;
   const z0 = z[from] as number;
-  const departure = walkPlate(x, z, n, dir, fit.line.a, fit.line.b, tau, run, x0, z0);
+  walkLine[0] = fit.line.a;
+  walkLine[1] = fit.line.b;
+  walkLine[2] = tau;
+  walkLine[3] = x0;
+  walkLine[4] = z0;
+  const departure = walkPlate(x, z, n, dir, run);
   const cnt = walkSums[0] as number;
   const sx = walkSums[1] as number;
   const sz = walkSums[2] as number;
@@ -219,9 +224,13 @@ function toeOf(
 const SMOOTH_ABOVE = 0.003;
 const SMOOTH_SPAN_MM = 0.3;
 
-/** Centred moving average over `w` (odd) points; the ends keep shorter windows. */
+// The smoothed profile, reused from slice to slice: extraction is synchronous and keeps no reference to it.
+let smoothed = new Float64Array(0);
+
+/** Centred moving average over `w` (odd) points; the ends keep shorter windows. Valid until the next call. */
 function movingAverage(z: ArrayLike<number>, n: number, w: number): Float64Array {
-  const out = new Float64Array(n);
+  if (smoothed.length < n) smoothed = new Float64Array(n);
+  const out = smoothed;
   const h = (w - 1) >> 1;
   let sum = 0;
   let lo = 0;

@@ -91,50 +91,101 @@ export function fitLineTrimmed(
 ): { line: Line; rms: number; inliers: number } | null {
   const x0 = x[from] as number;
   const z0 = z[from] as number;
-  let fitted = false;
+  const total = Math.ceil((to - from) / stride);
   let a = 0;
   let b = 0;
   let rms = 0;
   let inliers = 0;
+  // Bound on the rounding error of the last round's residual sum of squares (see below).
+  let slack = 0;
+  let sse = 0;
   for (let pass = 0; pass < 3; pass++) {
-    // The first round takes every point (an infinite tolerance), later ones those near the last line.
-    const tol = fitted ? Math.max(3 * rms, floor) : Infinity;
+    const tol = Math.max(3 * rms, floor);
+    // A clean plate drops no point in the first trimming round, which would refit the same set. No residual exceeds
+    // the root of the residual sum of squares, so when that root (with its rounding error) is well within the
+    // tolerance no point can be dropped; otherwise a pass that only looks for a point beyond the tolerance (and
+    // stops at the first) decides it at the cost of the test alone.
+    if (pass === 1 && (sse + slack <= tol * tol * (1 - 1e-6) || !beyond(x, z, from, to, stride, a, b, tol)))
+      break;
     let sx = 0,
       sz = 0,
       sxx = 0,
       sxz = 0,
       szz = 0,
       n = 0;
-    for (let i = from; i < to; i += stride) {
-      const xa = x[i] as number;
-      const za = z[i] as number;
-      if (Math.abs(za - a - b * xa) > tol) continue;
-      const xi = xa - x0;
-      const zi = za - z0;
-      sx += xi;
-      sz += zi;
-      sxx += xi * xi;
-      sxz += xi * zi;
-      szz += zi * zi;
-      n++;
+    // The first round takes every point, later ones those near the last line.
+    if (pass === 0) {
+      for (let i = from; i < to; i += stride) {
+        const xi = (x[i] as number) - x0;
+        const zi = (z[i] as number) - z0;
+        sx += xi;
+        sz += zi;
+        sxx += xi * xi;
+        sxz += xi * zi;
+        szz += zi * zi;
+      }
+      n = total;
+    } else {
+      for (let i = from; i < to; i += stride) {
+        const xa = x[i] as number;
+        const za = z[i] as number;
+        if (Math.abs(za - a - b * xa) > tol) continue;
+        const xi = xa - x0;
+        const zi = za - z0;
+        sx += xi;
+        sz += zi;
+        sxx += xi * xi;
+        sxz += xi * zi;
+        szz += zi * zi;
+        n++;
+      }
     }
     // lineFromSums and sseFromSums, written out: the rounds make no objects.
     const det = n * sxx - sx * sx;
     if (n < 2 || !(Math.abs(det) > 1e-18)) break;
     const slope = (n * sxz - sx * sz) / det;
     const a0 = (sz - slope * sx) / n;
-    // A trimming round that dropped no point refits the same set: every further round would repeat it.
-    const kept = pass > 0 && n === inliers && n === Math.ceil((to - from) / stride);
-    fitted = true;
     b = slope;
     a = a0 - slope * x0 + z0;
     inliers = n;
     // Residual sum of squares about z − z0 = a0 + b·(x − x0), from the sums.
-    const sse = szz - 2 * a0 * sz - 2 * slope * sxz + n * a0 * a0 + 2 * a0 * slope * sx + slope * slope * sxx;
-    rms = Math.sqrt((sse > 0 ? sse : 0) / n);
-    if (kept) break;
+    const t3 = n * a0 * a0;
+    const t5 = slope * slope * sxx;
+    const raw = szz - 2 * a0 * sz - 2 * slope * sxz + t3 + 2 * a0 * slope * sx + t5;
+    sse = raw > 0 ? raw : 0;
+    // Its rounding error: each sum carries up to about n roundings of its terms' magnitudes (Higham, "Accuracy and
+    // Stability of Numerical Algorithms", 2002, §4.2), bounded by Cauchy–Schwarz (Σ|z| ≤ √(n·Σz²), Σ|xz| ≤
+    // √(Σx²·Σz²)), taken twice over.
+    slack =
+      2 *
+      (n + 8) *
+      Number.EPSILON *
+      (szz +
+        2 * Math.abs(a0) * Math.sqrt(n * szz) +
+        2 * Math.abs(slope) * Math.sqrt(sxx * szz) +
+        t3 +
+        2 * Math.abs(a0 * slope) * Math.sqrt(n * sxx) +
+        t5);
+    rms = Math.sqrt(sse / n);
   }
-  return fitted ? { line: { a, b }, rms, inliers } : null;
+  return inliers > 0 ? { line: { a, b }, rms, inliers } : null;
+}
+
+/** Whether any of the points [from, to) taken every `stride` lies more than `tol` from z = a + b·x. */
+function beyond(
+  x: ArrayLike<number>,
+  z: ArrayLike<number>,
+  from: number,
+  to: number,
+  stride: number,
+  a: number,
+  b: number,
+  tol: number,
+): boolean {
+  for (let i = from; i < to; i += stride) {
+    if (Math.abs((z[i] as number) - a - b * (x[i] as number)) > tol) return true;
+  }
+  return false;
 }
 
 export interface Circle {
@@ -188,8 +239,15 @@ export function fitCirclePratt(
 ): Circle | null {
   const n = to - from;
   if (n < 3) return null;
-  const mx = mean(x, from, to);
-  const mz = mean(z, from, to);
+  // The centroid in one pass over both coordinates.
+  let mx = 0;
+  let mz = 0;
+  for (let i = from; i < to; i++) {
+    mx += x[i] as number;
+    mz += z[i] as number;
+  }
+  mx /= n;
+  mz /= n;
   let Mxx = 0,
     Myy = 0,
     Mxy = 0,

@@ -5,40 +5,54 @@
 /** The accepted points' sums, x and z taken from (x0, z0): n, Σx, Σz, Σx², Σxz, Σz². Reused from walk to walk. */
 export const walkSums = new Float64Array(6);
 
+/**
+ * The line z = a + b·x, the tolerance τ and the origin (x0, z0) of the sums, set by the caller before each walk.
+ * Passed as arguments, a whole number among them (x0 = −30, z0 = 0) arrives untyped and the optimised loop
+ * checked its kind at every point; read from here they are plain doubles from the start.
+ */
+export const walkLine = new Float64Array(5);
+
 /** Returns the first index of the weld seen from this side, or −1 when the profile never leaves the line. */
 export function walkPlate(
   x: ArrayLike<number>,
   z: ArrayLike<number>,
   n: number,
   dir: 1 | -1,
-  a: number,
-  b: number,
-  tau: number,
   run: number,
-  x0: number,
-  z0: number,
 ): number {
+  const a = walkLine[0] as number;
+  const b = walkLine[1] as number;
+  const tau = walkLine[2] as number;
+  const x0 = walkLine[3] as number;
+  const z0 = walkLine[4] as number;
   let sx = 0;
   let sz = 0;
   let sxx = 0;
   let sxz = 0;
   let szz = 0;
-  let cnt = 0;
-  let out = 0;
   let departure = -1;
+  // Only points off the line touch the run bookkeeping (where the current run began, the last point off the line,
+  // how many were left out); the accepted point, nearly every one, does nothing but the test and the sums.
+  let left = 0;
+  let runStart = -1;
+  let visited = n;
   // Two loops, one per direction, so each index runs with a constant step.
   if (dir === 1) {
+    let lastOff = -2;
     for (let i = 0; i < n; i++) {
       const xa = x[i] as number;
       const za = z[i] as number;
       if (Math.abs(za - a - b * xa) > tau) {
-        if (++out === run) {
-          departure = i - (run - 1);
+        if (i !== lastOff + 1) runStart = i;
+        lastOff = i;
+        left++;
+        if (i - runStart + 1 === run) {
+          departure = runStart;
+          visited = i + 1;
           break;
         }
         continue;
       }
-      out = 0;
       const xi = xa - x0;
       const zi = za - z0;
       sx += xi;
@@ -46,20 +60,23 @@ export function walkPlate(
       sxx += xi * xi;
       sxz += xi * zi;
       szz += zi * zi;
-      cnt++;
     }
   } else {
+    let lastOff = n + 1;
     for (let i = n - 1; i >= 0; i--) {
       const xa = x[i] as number;
       const za = z[i] as number;
       if (Math.abs(za - a - b * xa) > tau) {
-        if (++out === run) {
-          departure = i + (run - 1);
+        if (i !== lastOff - 1) runStart = i;
+        lastOff = i;
+        left++;
+        if (runStart - i + 1 === run) {
+          departure = runStart;
+          visited = n - i;
           break;
         }
         continue;
       }
-      out = 0;
       const xi = xa - x0;
       const zi = za - z0;
       sx += xi;
@@ -67,9 +84,9 @@ export function walkPlate(
       sxx += xi * xi;
       sxz += xi * zi;
       szz += zi * zi;
-      cnt++;
     }
   }
+  const cnt = visited - left;
   walkSums[0] = cnt;
   walkSums[1] = sx;
   walkSums[2] = sz;

@@ -1,6 +1,6 @@
-// The scans over the weld between the two plate departures, fused so the points are read once: the crown (highest
-// point above the chord between the departures) and, on each side of it, the steepest point of the face in that
-// plate's frame. The height above the toe chord then looks only at points the crown scan kept as candidates.
+// The scans over the weld between the two plate departures: the crown (highest point above the chord between the
+// departures), then, on each side of it, the steepest point of the face in that plate's frame. The height above the
+// toe chord then looks only at points the crown scan kept as candidates.
 import type { Line } from './fits.js';
 
 export interface WeldScan {
@@ -22,10 +22,10 @@ let chordHeight = new Float64Array(0);
 let blockTop = new Float64Array(0);
 
 /**
- * One pass over [from, to]: the crown is the first highest point above the chord between the departures on the
- * plate lines; slopes are taken over ±k points. Plate 1's steepest point is the first steepest before the crown,
- * plate 2's the steepest after it nearest plate 2 (the order in which a walk from each plate would meet them).
- * Points whose neighbours lie outside the profile, or do not advance in x, give no slope.
+ * The crown is the first highest point of [from, to] above the chord between the departures on the plate lines;
+ * slopes are taken over ±k points. Plate 1's steepest point is the first steepest before the crown, plate 2's the
+ * steepest after it nearest plate 2 (the order in which a walk from each plate would meet them). Points whose
+ * neighbours lie outside the profile, or do not advance in x, give no slope.
  */
 export function scanWeld(
   x: ArrayLike<number>,
@@ -43,68 +43,119 @@ export function scanWeld(
   }
   const h = chordHeight;
   const tops = blockTop;
-  tops.fill(-Infinity, 0, ((to - from) >> 4) + 1);
   const xa = x[from] as number;
   const za = line1.a + line1.b * xa;
   const xb = x[to] as number;
   const zb = line2.a + line2.b * xb;
   const slope = (zb - za) / (xb - xa);
+  // Heights block by block, each block's maximum kept in a local: the crown is then looked for only in the first
+  // block holding the highest point.
+  let top = -Infinity;
+  let topBlock = 0;
+  for (let start = from, blk = 0; start <= to; start += BLOCK, blk++) {
+    const end = Math.min(to, start + BLOCK - 1);
+    let m = -Infinity;
+    for (let i = start; i <= end; i++) {
+      const hi = (z[i] as number) - za - slope * ((x[i] as number) - xa);
+      h[i] = hi;
+      if (hi > m) m = hi;
+    }
+    tops[blk] = m;
+    if (m > top) {
+      top = m;
+      topBlock = blk;
+    }
+  }
+  let crown = from;
+  if (top > -Infinity) {
+    crown = from + topBlock * BLOCK;
+    while ((h[crown] as number) !== top) crown++;
+  }
   // A plate's frame shifts every slope by the plate's own slope, so the steepest point in plate 1's frame is the
   // one of largest raw slope and in plate 2's (which runs the other way) the one of smallest; the plate slopes are
   // applied at the end. Slopes are kept as rise over run and compared cross-multiplied (runs are positive): no
-  // division per point.
-  let crown = from;
-  let top = -Infinity;
+  // division per point. Each side is its own small loop: fused with the heights, the scan's many live values
+  // spilled to the stack.
+  const first = Math.max(from, k);
+  const last = Math.min(to, n - 1 - k);
+  const end1 = Math.min(crown - 1, last);
+  const start2 = Math.max(first, crown + 1);
   let maxRise = -Infinity;
   let maxRun = 1;
   let maxAt = from;
-  let crownRise = -Infinity;
-  let crownRun = 1;
-  let crownAt = from;
   let minRise = Infinity;
   let minRun = 1;
   let minAt = to;
-  const first = Math.max(from, k);
-  const last = Math.min(to, n - 1 - k);
-  for (let i = from; i <= to; i++) {
-    const hi = (z[i] as number) - za - slope * ((x[i] as number) - xa);
-    h[i] = hi;
-    const b = (i - from) >> 4;
-    if (hi > (tops[b] as number)) tops[b] = hi;
-    let rise = NaN;
-    let run = 0;
-    if (i >= first && i <= last) {
-      rise = (z[i + k] as number) - (z[i - k] as number);
-      run = (x[i + k] as number) - (x[i - k] as number);
+  if (k === 1) {
+    // One point either side (a profile with little scatter): the neighbours slide along, two loads a point.
+    if (first <= end1) {
+      let zl = z[first - 1] as number;
+      let xl = x[first - 1] as number;
+      let zc = z[first] as number;
+      let xc = x[first] as number;
+      for (let i = first; i <= end1; i++) {
+        const zr = z[i + 1] as number;
+        const xr = x[i + 1] as number;
+        const rise = zr - zl;
+        const run = xr - xl;
+        if (run > 0 && rise * maxRun > maxRise * run) {
+          maxRise = rise;
+          maxRun = run;
+          maxAt = i;
+        }
+        zl = zc;
+        xl = xc;
+        zc = zr;
+        xc = xr;
+      }
     }
-    const sloped = run > 0;
-    if (hi > top) {
-      top = hi;
-      crown = i;
-      // Plate 1's steepest point lies before the crown: what the scan has seen so far.
-      crownRise = maxRise;
-      crownRun = maxRun;
-      crownAt = maxAt;
-      minRise = Infinity;
-      minRun = 1;
-      minAt = to;
-    } else if (sloped && rise * minRun <= minRise * run) {
-      // On a tie the later point wins: the first a walk from plate 2 would meet.
-      minRise = rise;
-      minRun = run;
-      minAt = i;
+    if (start2 <= last) {
+      let zl = z[start2 - 1] as number;
+      let xl = x[start2 - 1] as number;
+      let zc = z[start2] as number;
+      let xc = x[start2] as number;
+      for (let i = start2; i <= last; i++) {
+        const zr = z[i + 1] as number;
+        const xr = x[i + 1] as number;
+        const rise = zr - zl;
+        const run = xr - xl;
+        // On a tie the later point wins: the first a walk from plate 2 would meet.
+        if (run > 0 && rise * minRun <= minRise * run) {
+          minRise = rise;
+          minRun = run;
+          minAt = i;
+        }
+        zl = zc;
+        xl = xc;
+        zc = zr;
+        xc = xr;
+      }
     }
-    if (sloped && rise * maxRun > maxRise * run) {
-      maxRise = rise;
-      maxRun = run;
-      maxAt = i;
+  } else {
+    for (let i = first; i <= end1; i++) {
+      const rise = (z[i + k] as number) - (z[i - k] as number);
+      const run = (x[i + k] as number) - (x[i - k] as number);
+      if (run > 0 && rise * maxRun > maxRise * run) {
+        maxRise = rise;
+        maxRun = run;
+        maxAt = i;
+      }
+    }
+    for (let i = start2; i <= last; i++) {
+      const rise = (z[i + k] as number) - (z[i - k] as number);
+      const run = (x[i + k] as number) - (x[i - k] as number);
+      if (run > 0 && rise * minRun <= minRise * run) {
+        minRise = rise;
+        minRun = run;
+        minAt = i;
+      }
     }
   }
   return {
     crown,
     top,
-    steep1: crownAt,
-    slope1: crownRise / crownRun - line1.b,
+    steep1: maxAt,
+    slope1: maxRise / maxRun - line1.b,
     steep2: minAt,
     slope2: line2.b - minRise / minRun,
   };
