@@ -2,7 +2,8 @@
 // the left). Our method, step by step:
 //  1. each plate surface by a trimmed least-squares line over about 64 points of the outer fifth of the profile on
 //     its side (σ, the plate scatter, is its RMS), then walked inwards while points stay within the departure
-//     tolerance τ = max(4σ, 0.005 mm) and refitted over every point the walk accepted;
+//     tolerance τ = max(4σ, 0.005 mm) and refitted over the points the walk accepted (every other one on a profile
+//     of 400 points or more; the weld's start is found point by point all the same);
 //  2. the weld begins where three points in a row (a smoothing window's worth when smoothed) leave the plate line
 //     by more than τ; a dip below the line first is an undercut (on either plate), its depth the deepest point;
 //  3. the steepest point of the face between toe and crown (slope over ±k points) splits the toe transition from
@@ -86,7 +87,7 @@ function plateSide(
   if (outer * 2 >= n) return 'too few points for two plates and a weld';
   const from = dir === 1 ? 0 : n - outer;
   const to = dir === 1 ? outer : n;
-  // A first estimate from about 64 points of the outer part; the walk below refits over every accepted point.
+  // A first estimate from about 64 points of the outer part; the walk below refits over the accepted points.
   const fit = fitLineTrimmed(x, z, from, to, TAU_MIN / 4, Math.max(1, Math.floor(outer / PLATE_SAMPLE)));
   if (!fit) return 'plate line could not be fitted';
   const sigma = fit.rms;

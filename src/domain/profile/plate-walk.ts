@@ -12,6 +12,17 @@ export const walkSums = new Float64Array(6);
  */
 export const walkLine = new Float64Array(5);
 
+/**
+ * On a profile of STEP_FROM points or more the walk steps over every other point: a run of `run` (≥ 2) points off the line always holds a point it lands on,
+ * and from there it looks back at the point it stepped over and forward point by point, so the weld begins exactly
+ * where a walk over every point finds it. The sums take the points it lands on that lie on the line: half of the
+ * plate's points, which moves the refitted line by a factor √2 of its own scatter (under a micrometre for a plate
+ * scatter of 0.01 mm over some 190 points) for half the summing.
+ */
+const STEP = 2;
+/** Below this many points a profile's plates are short: every point is summed. */
+const STEP_FROM = 400;
+
 /** Returns the first index of the weld seen from this side, or −1 when the profile never leaves the line. */
 export function walkPlate(
   x: ArrayLike<number>,
@@ -30,63 +41,73 @@ export function walkPlate(
   let sxx = 0;
   let sxz = 0;
   let szz = 0;
+  let cnt = 0;
   let departure = -1;
-  // Only points off the line touch the run bookkeeping (where the current run began, the last point off the line,
-  // how many were left out); the accepted point, nearly every one, does nothing but the test and the sums.
-  let left = 0;
-  let runStart = -1;
-  let visited = n;
+  const step = n >= STEP_FROM ? STEP : 1;
+  const off = (k: number): boolean => Math.abs((z[k] as number) - a - b * (x[k] as number)) > tau;
   // Two loops, one per direction, so each index runs with a constant step.
   if (dir === 1) {
-    let lastOff = -2;
-    for (let i = 0; i < n; i++) {
+    // Every index up to `tested` was looked at; the stride steps over one point at most.
+    let tested = -1;
+    let i = 0;
+    while (i < n) {
       const xa = x[i] as number;
       const za = z[i] as number;
-      if (Math.abs(za - a - b * xa) > tau) {
-        if (i !== lastOff + 1) runStart = i;
-        lastOff = i;
-        left++;
-        if (i - runStart + 1 === run) {
-          departure = runStart;
-          visited = i + 1;
-          break;
-        }
+      if (Math.abs(za - a - b * xa) <= tau) {
+        const xi = xa - x0;
+        const zi = za - z0;
+        sx += xi;
+        sz += zi;
+        sxx += xi * xi;
+        sxz += xi * zi;
+        szz += zi * zi;
+        cnt++;
+        tested = i;
+        i += step;
         continue;
       }
-      const xi = xa - x0;
-      const zi = za - z0;
-      sx += xi;
-      sz += zi;
-      sxx += xi * xi;
-      sxz += xi * zi;
-      szz += zi * zi;
+      let start = i;
+      while (start - 1 > tested && off(start - 1)) start--;
+      let j = i + 1;
+      while (j < n && j - start < run && off(j)) j++;
+      if (j - start >= run) {
+        departure = start;
+        break;
+      }
+      tested = j - 1;
+      i = j;
     }
   } else {
-    let lastOff = n + 1;
-    for (let i = n - 1; i >= 0; i--) {
+    let tested = n;
+    let i = n - 1;
+    while (i >= 0) {
       const xa = x[i] as number;
       const za = z[i] as number;
-      if (Math.abs(za - a - b * xa) > tau) {
-        if (i !== lastOff - 1) runStart = i;
-        lastOff = i;
-        left++;
-        if (runStart - i + 1 === run) {
-          departure = runStart;
-          visited = n - i;
-          break;
-        }
+      if (Math.abs(za - a - b * xa) <= tau) {
+        const xi = xa - x0;
+        const zi = za - z0;
+        sx += xi;
+        sz += zi;
+        sxx += xi * xi;
+        sxz += xi * zi;
+        szz += zi * zi;
+        cnt++;
+        tested = i;
+        i -= step;
         continue;
       }
-      const xi = xa - x0;
-      const zi = za - z0;
-      sx += xi;
-      sz += zi;
-      sxx += xi * xi;
-      sxz += xi * zi;
-      szz += zi * zi;
+      let start = i;
+      while (start + 1 < tested && off(start + 1)) start++;
+      let j = i - 1;
+      while (j >= 0 && start - j < run && off(j)) j--;
+      if (start - j >= run) {
+        departure = start;
+        break;
+      }
+      tested = j + 1;
+      i = j;
     }
   }
-  const cnt = visited - left;
   walkSums[0] = cnt;
   walkSums[1] = sx;
   walkSums[2] = sz;
