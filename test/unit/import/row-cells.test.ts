@@ -4,6 +4,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { plainNumberIn, readCell } from '../../../src/domain/import/cells.js';
 import { RowTokenizer, type Newline } from '../../../src/domain/import/row-tokenizer.js';
+import { cutText } from '../../support/text-cuts.js';
 
 type Row = { line: number; cells: string[] };
 
@@ -27,19 +28,6 @@ function viaCells(chunks: readonly string[], delimiter: string, newline: Newline
   return out;
 }
 
-/** Cuts the text at the given fractions (sorted), making chunks that may split a row or a CRLF pair. */
-function chunked(text: string, cuts: readonly number[]): string[] {
-  const at = [...new Set(cuts.map((f) => Math.floor(f * text.length)))].sort((a, b) => a - b);
-  const out: string[] = [];
-  let prev = 0;
-  for (const c of at) {
-    out.push(text.slice(prev, c));
-    prev = c;
-  }
-  out.push(text.slice(prev));
-  return out;
-}
-
 describe('unquoted rows read in place', () => {
   it('match papaparse rows and line numbers for any text without quotes and any chunking', () => {
     const alphabet = fc.constantFrom('1', '2', ',', ';', '\t', '|', '\r', '\n', ' ', 'a', '-', '.');
@@ -50,7 +38,7 @@ describe('unquoted rows read in place', () => {
         fc.constantFrom<Newline>('\n', '\r\n', '\r'),
         fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { maxLength: 6 }),
         (text, delimiter, newline, cuts) => {
-          const chunks = chunked(text, cuts);
+          const chunks = cutText(text, cuts, true);
           expect(viaCells(chunks, delimiter, newline)).toEqual(viaPapaparse(chunks, delimiter, newline));
         },
       ),

@@ -3,19 +3,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { detectNewline, detectNewlineIn } from '../../../src/domain/import/row-tokenizer.js';
 import { binaryAt, binaryAtAll } from '../../../src/domain/import/text-decoding.js';
-
-/** Cuts the text at the given fractions, making pieces that may be empty. */
-function pieces(text: string, cuts: readonly number[]): string[] {
-  const at = cuts.map((f) => Math.floor(f * text.length)).sort((a, b) => a - b);
-  const out: string[] = [];
-  let prev = 0;
-  for (const c of at) {
-    out.push(text.slice(prev, c));
-    prev = c;
-  }
-  out.push(text.slice(prev));
-  return out;
-}
+import { cutText as pieces } from '../../support/text-cuts.js';
 
 const text = fc.string({
   unit: fc.constantFrom('a', '1', ';', '\r', '\n', '\t', '\u0000', '\u0001', '\u000b', '\ufffd'),
