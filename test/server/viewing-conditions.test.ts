@@ -9,6 +9,7 @@ import {
   RECORD_SCHEMA_VERSION,
   type PullReply,
 } from '../../src/protocol/index.js';
+import { foldSeam, foldViewing } from '../../src/server/grading/fold.js';
 import { VIEWING_HEADERS } from '../../src/server/review/viewing-columns.js';
 import { uuidv7 } from '../../src/store/ids.js';
 import { bodies, T0, testSeam, toeReading } from './records.js';
@@ -159,5 +160,17 @@ describe('viewing conditions in the CSV exports', () => {
     await server.settle();
     const after = await csv('seams.csv');
     expect(seamLine(after.data[0])).toEqual(['', '2', 'remote', '1200', '', '', '', '', '0', T0]);
+  });
+  it('come from the seam’s viewing records alone, the same as folding every record of the seam', async () => {
+    const server = await testServer();
+    const { seam } = await seamWithCorrectedViewing(server);
+    const only = await server.storage.viewingRecordsOf(seam.id);
+    const all = await server.storage.seamMaterial(seam.id);
+    expect(only.length).toBeGreaterThan(1);
+    expect(only.every((r) => r.kind === 'viewing')).toBe(true);
+    expect(only.map((r) => r.id)).toEqual(all.records.filter((r) => r.kind === 'viewing').map((r) => r.id));
+    expect(all.records.length).toBeGreaterThan(only.length);
+    expect(foldViewing(only)).toEqual(foldSeam(all).viewing);
+    expect(foldViewing(only)[0]).toMatchObject({ round: 1, records: 2 });
   });
 });

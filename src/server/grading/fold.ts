@@ -47,7 +47,7 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
   let setup: { revision: number; receiveSeq: number; seam: Seam } | null = null;
   const rounds = new Map<number, { receiveSeq: number; round: Round }>();
   const answers = new Map<string, GradeRecord[]>();
-  const viewings = new Map<number, GradeRecord[]>();
+  const viewingRecords: GradeRecord[] = [];
   const readings: { recordId: string; reading: Reading }[] = [];
 
   for (const r of material.records) {
@@ -98,12 +98,10 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
       case 'reading':
         readings.push({ recordId: r.id, reading: held?.get(r.id) ?? bodyOf<'reading'>(r).reading });
         break;
-      case 'viewing': {
-        // Not graded: the conditions are reported. A correction is a later record for the same round.
-        const body = bodyOf<'viewing'>(r);
-        viewings.set(body.round, [...(viewings.get(body.round) ?? []), r]);
+      case 'viewing':
+        // Not graded: the conditions are reported (foldViewing).
+        viewingRecords.push(r);
         break;
-      }
       case 'tagLink':
         // Which tag leads to the seam: kept as a record, nothing to grade and nothing left out.
         break;
@@ -126,19 +124,7 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
     round.round = { ...round.round, checklist: { ...round.round.checklist, [body.item]: body.answer } };
   }
 
-  const viewing: RoundViewing[] = [];
-  for (const [round, candidates] of viewings) {
-    const winner = latestAnswer(candidates);
-    const body = bodyOf<'viewing'>(winner);
-    viewing.push({
-      round,
-      conditions: body.conditions,
-      recordedAt: body.recordedAt,
-      recordId: winner.id,
-      records: candidates.length,
-    });
-  }
-  viewing.sort((a, b) => a.round - b.round);
+  const viewing = foldViewing(viewingRecords);
 
   const seam =
     (setup as { seam: Seam } | null)?.seam ??
@@ -153,6 +139,31 @@ export function foldSeam(material: GradeMaterial, held?: ReadonlyMap<string, Rea
     leftOut,
     viewing,
   };
+}
+
+/**
+ * Per round, the viewing and lighting conditions in force, from a seam's viewing records alone (the rest of its
+ * records do not change them): a correction is a later record for the same round.
+ */
+export function foldViewing(records: readonly GradeRecord[]): RoundViewing[] {
+  const byRound = new Map<number, GradeRecord[]>();
+  for (const r of records) {
+    const round = bodyOf<'viewing'>(r).round;
+    byRound.set(round, [...(byRound.get(round) ?? []), r]);
+  }
+  const viewing: RoundViewing[] = [];
+  for (const [round, candidates] of byRound) {
+    const winner = latestAnswer(candidates);
+    const body = bodyOf<'viewing'>(winner);
+    viewing.push({
+      round,
+      conditions: body.conditions,
+      recordedAt: body.recordedAt,
+      recordId: winner.id,
+      records: candidates.length,
+    });
+  }
+  return viewing.sort((a, b) => a.round - b.round);
 }
 
 /**

@@ -1,8 +1,8 @@
 // The CSV exports of a selection of seams (the queue's filters, or seams named one by one): readings and seam
 // summaries. Readings are read per seam with the same fold and left-out list as the grade, without grading again;
-// the seam summaries fold each seam's records too, for the viewing conditions the queue's rows do not hold.
+// the seam summaries read each seam's viewing records, for the viewing conditions the queue's rows do not hold.
 import type { AppDeps } from '../deps.js';
-import { foldSeam, type RoundViewing } from '../grading/fold.js';
+import { foldViewing, type RoundViewing } from '../grading/fold.js';
 import type { Device } from '../storage/types.js';
 import { parseReviewQuery } from './query.js';
 import { readingLines, type ReadingLine } from './seam-detail.js';
@@ -55,6 +55,6 @@ export async function seamsExport(deps: AppDeps, params: URLSearchParams): Promi
   });
   const rows = named.length ? page.rows.filter((r) => named.includes(r.seamId)) : page.rows;
   const viewing = new Map<string, readonly RoundViewing[]>();
-  for (const r of rows) viewing.set(r.seamId, foldSeam(await deps.storage.seamMaterial(r.seamId)).viewing);
+  for (const r of rows) viewing.set(r.seamId, foldViewing(await deps.storage.viewingRecordsOf(r.seamId)));
   return seamsCsv(rows, viewing);
 }

@@ -472,6 +472,8 @@ export interface Storage {
    * parsed already) may be left out, as null.
    */
   gradeMaterial(seamId: string, bodiesHeld: ReadonlySet<string>): Promise<GradeMaterial>;
+  /** The seam's viewing records alone, in the order received: its viewing conditions without reading the rest. */
+  viewingRecordsOf(seamId: string): Promise<StoredRecord[]>;
   saveServerGrade(grade: ServerGrade): Promise<void>;
   /** Seams holding records newer than their server grade (a re-grade was lost, e.g. to a restart). */
   staleSeams(): Promise<string[]>;

@@ -256,6 +256,7 @@ export class SqliteStorage implements Storage {
       securityEvents: p('SELECT * FROM security_events ORDER BY id DESC LIMIT ?'),
       recordsAll: p('SELECT * FROM records ORDER BY receive_seq'),
       recordsOfSeam: p('SELECT * FROM records WHERE seam_id = ? ORDER BY receive_seq'),
+      viewingOfSeam: p("SELECT * FROM records WHERE seam_id = ? AND kind = 'viewing' ORDER BY receive_seq"),
       recordHeadsOfSeam: p(
         'SELECT receive_seq, id, kind, device_kid, device_seq FROM records WHERE seam_id = ? ORDER BY receive_seq',
       ).raw(true),
@@ -822,6 +823,10 @@ export class SqliteStorage implements Storage {
       seam: this.#seamSync(seamId),
       records: (this.#s.recordsOfSeam.all(seamId) as RecordRow[]).map(toRecord),
     }))();
+  }
+
+  async viewingRecordsOf(seamId: string): Promise<StoredRecord[]> {
+    return (this.#s.viewingOfSeam.all(seamId) as RecordRow[]).map(toRecord);
   }
 
   async gradeMaterial(seamId: string, bodiesHeld: ReadonlySet<string>): Promise<GradeMaterial> {
