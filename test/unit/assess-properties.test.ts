@@ -119,8 +119,9 @@ describe('km (misalignment reference §2)', () => {
           const sa = aNeg ? -1 : 1;
           const k11 = kmCalc(seam, se * e[0], sa * a[0]);
           expect(k11).toBeGreaterThanOrEqual(1);
-          expect(k11).toBeLessThanOrEqual(kmCalc(seam, se * e[1], sa * a[0]) + 1e-12);
-          expect(k11).toBeLessThanOrEqual(kmCalc(seam, se * e[0], sa * a[1]) + 1e-12);
+          // Relative rounding allowance: a step from 0 to 3e-12° in α was seen to lower km by 1e-12 at km ≈ 7.
+          expect(k11).toBeLessThanOrEqual(kmCalc(seam, se * e[1], sa * a[0]) * (1 + 1e-9));
+          expect(k11).toBeLessThanOrEqual(kmCalc(seam, se * e[0], sa * a[1]) * (1 + 1e-9));
         },
       ),
       RUNS,
