@@ -4,7 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { canonicalJson } from '../../src/protocol/index.js';
-import { cutBodies, restoreBodies } from '../../src/server/storage/sqlite/payload-cuts.js';
+import { restoreBodies } from '../../src/server/storage/sqlite/payload-cuts.js';
+import { cutBodies } from '../support/body-cuts.js';
 
 const bodyArb = fc.record({
   seamId: fc.string({ maxLength: 12 }),

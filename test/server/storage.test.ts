@@ -9,7 +9,7 @@ import { openDatabase } from '../../src/server/storage/sqlite/open.js';
 import { MIGRATIONS } from '../../src/server/storage/sqlite/migrations.js';
 import { SqliteStorage } from '../../src/server/storage/sqlite/sqlite-storage.js';
 import { PayloadBytes } from '../../src/server/sync/payload-bytes.js';
-import { cutBodies, cutsText } from '../../src/server/storage/sqlite/payload-cuts.js';
+import { cutBodies, cutsText } from '../support/body-cuts.js';
 import type { BatchPlan, PlannedRecord, Storage } from '../../src/server/storage/types.js';
 
 const T = (minute: number) => new Date(Date.UTC(2026, 11, 2, 9, minute)).toISOString();

@@ -52,27 +52,26 @@ function allocate(capacity: number, n: number): Omit<Mutable, 'size'> {
   const buffer = new ArrayBuffer(capacity * (3 * 8 + 2 * 4 + 3) + n * (4 * 4 + 1));
   let at = 0;
   const take = <T>(
-    make: new (b: ArrayBuffer, offset: number, length: number) => T,
+    make: { new (b: ArrayBuffer, offset: number, length: number): T; readonly BYTES_PER_ELEMENT: number },
     length: number,
-    bytes: number,
   ) => {
     const view = new make(buffer, at, length);
-    at += length * bytes;
+    at += length * make.BYTES_PER_ELEMENT;
     return view;
   };
-  const measured = take(Float64Array, capacity, 8);
-  const margin = take(Float64Array, capacity, 8);
-  const thickness = take(Float64Array, capacity, 8);
-  const reading = take(Uint32Array, capacity, 4);
-  const limitSet = take(Uint32Array, capacity, 4);
-  const readingFirst = take(Uint32Array, n, 4);
-  const readingCount = take(Uint32Array, n, 4);
-  const readingPresent = take(Uint32Array, n, 4);
-  const readingGraded = take(Uint32Array, n, 4);
-  const rank = take(Uint8Array, capacity, 1);
-  const mask = take(Uint8Array, capacity, 1);
-  const flags = take(Uint8Array, capacity, 1);
-  const readingRank = take(Uint8Array, n, 1);
+  const measured = take(Float64Array, capacity);
+  const margin = take(Float64Array, capacity);
+  const thickness = take(Float64Array, capacity);
+  const reading = take(Uint32Array, capacity);
+  const limitSet = take(Uint32Array, capacity);
+  const readingFirst = take(Uint32Array, n);
+  const readingCount = take(Uint32Array, n);
+  const readingPresent = take(Uint32Array, n);
+  const readingGraded = take(Uint32Array, n);
+  const rank = take(Uint8Array, capacity);
+  const mask = take(Uint8Array, capacity);
+  const flags = take(Uint8Array, capacity);
+  const readingRank = take(Uint8Array, n);
   // Fields in the order the interface lists them.
   return {
     reading,

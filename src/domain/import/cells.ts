@@ -76,7 +76,7 @@ export function readCell(raw: string, decimal: '.' | ','): CellResult {
 export const looksNumeric = (s: string): boolean =>
   /^\s*[+-]?(\d+([.,]\d*)?|[.,]\d+)([eE][+-]?\d+)?\s*$/.test(s);
 
-export const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
+const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
 
 /**
  * The fast path of readCell for the common cell: an optional sign, digits and at most one decimal mark, nothing
@@ -108,7 +108,14 @@ export function plainNumberIn(text: string, from: number, to: number, decimal: '
     } else if (c === mark && frac < 0) frac = 0;
     else return NaN;
   }
-  // Beyond 15 digits the integer may not be exact: readCell's Number() takes over.
+  return exactDecimal(negative, mantissa, digits, frac);
+}
+
+/**
+ * The number a sign, an integer of `digits` digits and `frac` of them after the mark make; NaN beyond 15 digits,
+ * where the integer may not be exact (readCell's Number() takes over).
+ */
+export function exactDecimal(negative: boolean, mantissa: number, digits: number, frac: number): number {
   if (digits === 0 || digits > 15) return NaN;
   const v = frac > 0 ? mantissa / (POW10[frac] as number) : mantissa;
   return negative ? -v : v;

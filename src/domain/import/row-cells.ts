@@ -1,6 +1,6 @@
 // One tokenized row, read cell by cell. Rows from papaparse arrive as string arrays; rows of unquoted text are
 // kept as spans of the chunk, so a number cell is read in place and never becomes a string of its own.
-import { plainNumberIn, POW10 } from './cells.js';
+import { exactDecimal, plainNumberIn } from './cells.js';
 import type { Newline } from './row-tokenizer.js';
 
 export interface RowCells {
@@ -108,13 +108,8 @@ export class SpanRow implements RowCells {
   ): void {
     this.starts[k] = start;
     this.ends[k] = end;
-    let value = NaN;
     // The same bounds as plainNumberIn: at most 17 characters and 15 digits, so the integer is exact.
-    if (plain && digits > 0 && digits <= 15 && end - start <= 17) {
-      const v = frac > 0 ? mantissa / (POW10[frac] as number) : mantissa;
-      value = negative ? -v : v;
-    }
-    this.numbers[k] = value;
+    this.numbers[k] = plain && end - start <= 17 ? exactDecimal(negative, mantissa, digits, frac) : NaN;
   }
 
   text(i: number): string {

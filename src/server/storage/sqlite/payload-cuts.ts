@@ -1,60 +1,10 @@
 // The earlier way a batch payload was kept: without the record bodies the records table holds, the rest of each
-// record left in place. Batches are now kept without their whole records (record-cuts.ts); rows stored this way are
-// still read back, and cutBodies stays to make such rows in tests. Each body is cut only where the payload's bytes
-// are exactly that body's stored text, and records are never changed or removed, so putting the stored texts back
-// gives the received bytes again.
+// record left in place, and the cuts kept as a JSON list of [offset, record id]. Batches are now kept without their
+// whole records (record-cuts.ts); rows stored this way are still read back. Records are never changed or removed,
+// so putting the stored bodies back gives the received bytes again.
 
 /** Where a body was cut: its offset in the kept bytes, and the id of the record whose stored body it is. */
 export type Cut = readonly [at: number, recordId: string];
-
-export interface CutPayload {
-  /** What is kept: the payload less the bodies, one character per byte as the payload was. */
-  readonly rest: string;
-  readonly cuts: readonly Cut[];
-}
-
-// In canonical JSON a record's members are sorted, so its body is its first member.
-const BODY_START = '{"body":';
-/** How many record starts a body is looked for at before it stays in the payload. */
-const TRIES = 4;
-
-/**
- * Cuts the bodies out of a payload given as its ASCII text (so a character's index is its byte's offset), looking
- * for them in order from where the last one ended: the search never goes back and costs one pass at most. Bodies
- * not found where expected simply stay. Null when nothing was cut.
- */
-export function cutBodies(
-  ascii: string,
-  records: readonly { readonly id: string; readonly body: string }[],
-): CutPayload | null {
-  const pieces: string[] = [];
-  const cuts: Cut[] = [];
-  let kept = 0;
-  let from = 0;
-  let cursor = 0;
-  for (const { id, body } of records) {
-    for (let tries = 0; tries < TRIES && cursor < ascii.length; tries++) {
-      const start = ascii.indexOf(BODY_START, cursor);
-      if (start < 0) {
-        cursor = ascii.length;
-        break;
-      }
-      const at = start + BODY_START.length;
-      cursor = at;
-      if (ascii.startsWith(body, at)) {
-        pieces.push(ascii.slice(from, at));
-        kept += at - from;
-        cuts.push([kept, id]);
-        from = cursor = at + body.length;
-        break;
-      }
-    }
-    if (cursor >= ascii.length) break;
-  }
-  if (!cuts.length) return null;
-  pieces.push(ascii.slice(from));
-  return { rest: pieces.join(''), cuts };
-}
 
 /** The payload as received: the kept bytes with each record's stored body put back where it was cut. */
 export function restoreBodies(
@@ -87,9 +37,6 @@ export function putBack<K>(
   parts.push(kept.subarray(from));
   return Buffer.concat(parts);
 }
-
-/** The cuts as kept in their column. */
-export const cutsText = (cuts: readonly Cut[]): string => JSON.stringify(cuts);
 
 export function parseCuts(text: string): Cut[] {
   const parsed = JSON.parse(text) as unknown;
